@@ -68,15 +68,18 @@ const CORNER_KEYS = [
 export function cornerInputParse(raw: unknown, field = 'corner'): CornerInput {
   const o = objectParse(raw, field, CORNER_KEYS);
   const at = (k: string) => inputFieldPath(field, k);
+  const cornerMass = requiredQuantity(o, 'cornerMass', 'mass', field);
+  const unsprungMass = requiredQuantity(o, 'unsprungMass', 'mass', field);
+  const springRate = requiredQuantity(o, 'springRate', 'stiffness', field);
   const springMotionRatio = numberParse(
     required(o, 'springMotionRatio', field),
     at('springMotionRatio'),
     'a motion ratio such as 0.88',
   );
   const corner: CornerInput = {
-    cornerMass: requiredQuantity(o, 'cornerMass', 'mass', field),
-    unsprungMass: requiredQuantity(o, 'unsprungMass', 'mass', field),
-    springRate: requiredQuantity(o, 'springRate', 'stiffness', field),
+    cornerMass,
+    unsprungMass,
+    springRate,
     springMotionRatio,
     damperMotionRatio:
       o.damperMotionRatio === undefined

@@ -87,6 +87,14 @@ export function cornerWarnings(figures: CornerFigures, modes?: Modes, step?: Ste
       message: `Unsprung ÷ sprung mass is ${f2(r)}, outside the usual ${b.unsprungRatio.low}–${b.unsprungRatio.high}: check that the corner mass includes the unsprung mass and that the unsprung mass is per corner.`,
     });
   }
+  if (modes && modes.body && !modes.wheelHop && modes.overdamped.length > 0) {
+    // With very stiff damping the suspension barely moves: the two masses ride the tyre as one.
+    out.push({
+      code: 'suspension-locked',
+      field: 'damper',
+      message: `Damping this stiff barely lets the suspension move: body and wheel bounce together on the tyre at ${f2(modes.body.frequencyHz)} Hz (ζ ${f2(modes.body.dampingRatio)}) and the body's own mode does not oscillate; bumps go through the tyre alone.`,
+    });
+  }
   if (modes && !modes.body) {
     out.push({
       code: 'body-mode-overdamped',
