@@ -1,0 +1,241 @@
+import { randomBytes, timingSafeEqual } from 'node:crypto';
+import { createReadStream, statSync } from 'node:fs';
+import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { extname, join, resolve, sep } from 'node:path';
+import { electronConfig } from '../../electron.config';
+
+/** Where an API call goes: the handler name and its JSON input; returns the JSON output. */
+export type ApiDispatch = (name: string, input: unknown) => Promise<unknown>;
+
+/** How the dispatcher reports a failure the client should see (bad input, unknown handler). */
+export type ApiFailure = { status: 400 | 404 | 409 | 413; field?: string; message: string };
+
+export type ServerOptions = {
+  dispatch: ApiDispatch;
+  /** Turns an error thrown by `dispatch` into what the client sees; undefined means "internal error". */
+  describeError: (error: unknown) => ApiFailure | undefined;
+  /** Folder of the built renderer; without it only the API is served. */
+  staticDir?: string;
+  /** 0 (the default) takes any free port. */
+  port?: number;
+  /** The per-start secret; a random one unless given (tests). */
+  token?: string;
+  /** Largest request body accepted (bytes); bench files can be large. */
+  maxBodyBytes?: number;
+  log?: (line: string) => void;
+};
+
+export type RunningServer = {
+  /** http://127.0.0.1:PORT */
+  origin: string;
+  port: number;
+  token: string;
+  /** The address to open: the origin with the token in the fragment, which the browser never sends. */
+  url: string;
+  close: () => Promise<void>;
+};
+
+/** Header that carries the token on every API request. */
+export const TOKEN_HEADER = 'x-rideledger-token';
+
+/** Prefix of every API route; every request under it needs the token. */
+export const API_PREFIX = '/api/';
+
+const CONTENT_TYPES: Record<string, string> = {
+  '.html': 'text/html; charset=utf-8',
+  '.js': 'text/javascript; charset=utf-8',
+  '.css': 'text/css; charset=utf-8',
+  '.json': 'application/json; charset=utf-8',
+  '.svg': 'image/svg+xml',
+  '.png': 'image/png',
+  '.ico': 'image/x-icon',
+  '.woff2': 'font/woff2',
+  '.csv': 'text/csv; charset=utf-8',
+};
+
+function securityHeaders(res: ServerResponse): void {
+  res.setHeader('Content-Security-Policy', electronConfig.contentSecurityPolicy);
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.setHeader('Referrer-Policy', 'no-referrer');
+  res.setHeader('X-Frame-Options', 'DENY');
+  res.setHeader('Cross-Origin-Opener-Policy', 'same-origin');
+  res.setHeader('Cross-Origin-Resource-Policy', 'same-origin');
+}
+
+function sendJson(res: ServerResponse, status: number, body: unknown): void {
+  const text = JSON.stringify(body);
+  res.writeHead(status, { 'Content-Type': 'application/json; charset=utf-8', 'Cache-Control': 'no-store' });
+  res.end(text);
+}
+
+function tokenMatches(given: string | undefined, token: string): boolean {
+  if (typeof given !== 'string') return false;
+  const a = Buffer.from(given);
+  const b = Buffer.from(token);
+  return a.length === b.length && timingSafeEqual(a, b);
+}
+
+/**
+ * Only our own host names, on our own port, are answered: a page elsewhere that points a
+ * name of its own at 127.0.0.1 (DNS rebinding) sends its own Host and is refused.
+ */
+function hostAllowed(hostHeader: string | undefined, port: number): boolean {
+  if (!hostHeader) return false;
+  let url: URL;
+  try {
+    url = new URL(`http://${hostHeader}`);
+  } catch {
+    return false;
+  }
+  return (url.hostname === '127.0.0.1' || url.hostname === 'localhost') && url.port === String(port);
+}
+
+async function readBody(req: IncomingMessage, limit: number): Promise<string | 'too large'> {
+  const chunks: Buffer[] = [];
+  let size = 0;
+  for await (const chunk of req) {
+    size += (chunk as Buffer).length;
+    if (size > limit) return 'too large';
+    chunks.push(chunk as Buffer);
+  }
+  return Buffer.concat(chunks).toString('utf8');
+}
+
+function serveStatic(root: string, pathname: string, res: ServerResponse): void {
+  let decoded: string;
+  try {
+    decoded = decodeURIComponent(pathname);
+  } catch {
+    sendJson(res, 400, { error: { message: 'bad path' } });
+    return;
+  }
+  const base = resolve(root);
+  let file = resolve(join(base, decoded));
+  // Never outside the renderer's folder, whatever the path says.
+  if (file !== base && !file.startsWith(base + sep)) {
+    sendJson(res, 404, { error: { message: 'not found' } });
+    return;
+  }
+  let stat = statSync(file, { throwIfNoEntry: false });
+  if (!stat || stat.isDirectory()) {
+    // The single-page app answers every route that is not a file with its index.
+    if (extname(decoded) !== '' && decoded !== '/') {
+      sendJson(res, 404, { error: { message: 'not found' } });
+      return;
+    }
+    file = join(base, 'index.html');
+    stat = statSync(file, { throwIfNoEntry: false });
+    if (!stat) {
+      sendJson(res, 404, { error: { message: 'the renderer is not built (npm run build:renderer)' } });
+      return;
+    }
+  }
+  const type = CONTENT_TYPES[extname(file)] ?? 'application/octet-stream';
+  res.writeHead(200, {
+    'Content-Type': type,
+    'Content-Length': stat.size,
+    'Cache-Control': file.endsWith('index.html') ? 'no-store' : 'public, max-age=31536000, immutable',
+  });
+  createReadStream(file).pipe(res);
+}
+
+/**
+ * The backend's HTTP face: the API contract on 127.0.0.1 behind a per-start token, and the
+ * built renderer. Every request's Host must be ours; every request under /api/ without the
+ * token is answered 401 before any routing; cross-origin API requests are refused.
+ */
+export async function serverStart(options: ServerOptions): Promise<RunningServer> {
+  const token = options.token ?? randomBytes(32).toString('base64url');
+  const maxBody = options.maxBodyBytes ?? 256 * 1024 * 1024;
+  const log = options.log ?? (() => {});
+  let port = 0;
+  const server: Server = createServer((req, res) => {
+    securityHeaders(res);
+    if (!hostAllowed(req.headers.host, port)) {
+      sendJson(res, 403, { error: { message: 'wrong host' } });
+      return;
+    }
+    const url = new URL(req.url ?? '/', `http://127.0.0.1:${port}`);
+    if (url.pathname.startsWith(API_PREFIX)) {
+      if (!tokenMatches(req.headers[TOKEN_HEADER] as string | undefined, token)) {
+        sendJson(res, 401, { error: { message: 'missing or wrong token' } });
+        return;
+      }
+      const origin = req.headers.origin;
+      if (
+        origin !== undefined &&
+        origin !== `http://127.0.0.1:${port}` &&
+        origin !== `http://localhost:${port}`
+      ) {
+        sendJson(res, 403, { error: { message: 'cross-origin request refused' } });
+        return;
+      }
+      void handleApi(url.pathname.slice(API_PREFIX.length), req, res);
+      return;
+    }
+    if (req.method !== 'GET' && req.method !== 'HEAD') {
+      sendJson(res, 405, { error: { message: 'method not allowed' } });
+      return;
+    }
+    if (!options.staticDir) {
+      sendJson(res, 404, { error: { message: 'not found' } });
+      return;
+    }
+    serveStatic(options.staticDir, url.pathname, res);
+  });
+
+  async function handleApi(route: string, req: IncomingMessage, res: ServerResponse): Promise<void> {
+    const match = /^call\/([A-Za-z][A-Za-z0-9]*)$/.exec(route);
+    if (!match) {
+      sendJson(res, 404, { error: { message: `no API route "${route}"` } });
+      return;
+    }
+    if (req.method !== 'POST') {
+      sendJson(res, 405, { error: { message: 'API calls are POST' } });
+      return;
+    }
+    const body = await readBody(req, maxBody);
+    if (body === 'too large') {
+      sendJson(res, 413, { error: { message: `request larger than ${maxBody} bytes` } });
+      return;
+    }
+    let input: unknown;
+    try {
+      input = body === '' ? {} : JSON.parse(body);
+    } catch {
+      sendJson(res, 400, { error: { message: 'the request body is not valid JSON' } });
+      return;
+    }
+    try {
+      const value = await options.dispatch(match[1] as string, input);
+      sendJson(res, 200, { value });
+    } catch (e) {
+      const failure = options.describeError(e);
+      if (failure) {
+        sendJson(res, failure.status, { error: { field: failure.field, message: failure.message } });
+      } else {
+        log(`internal error in ${match[1]}: ${(e as Error).stack ?? String(e)}`);
+        sendJson(res, 500, { error: { message: 'internal error; see the server log' } });
+      }
+    }
+  }
+
+  await new Promise<void>((done, fail) => {
+    server.once('error', fail);
+    server.listen(options.port ?? 0, '127.0.0.1', () => done());
+  });
+  port = (server.address() as AddressInfo).port;
+  const origin = `http://127.0.0.1:${port}`;
+  return {
+    origin,
+    port,
+    token,
+    url: `${origin}/#token=${token}`,
+    close: () =>
+      new Promise<void>((done) => {
+        server.closeAllConnections();
+        server.close(() => done());
+      }),
+  };
+}
