@@ -1,0 +1,46 @@
+import type { HandlerInput, HandlerName, HandlerOutput } from '../api/contract';
+
+/** An API call that failed; `field` names the bad input where there is one. */
+export class ApiCallError extends Error {
+  readonly status: number;
+  readonly field: string | undefined;
+  constructor(status: number, message: string, field?: string) {
+    super(message);
+    this.name = 'ApiCallError';
+    this.status = status;
+    this.field = field;
+  }
+}
+
+const TOKEN_KEY = 'rideledger-token';
+
+/**
+ * The per-start token arrives in the address's fragment (#token=…), which the browser never
+ * sends anywhere; it is kept for this tab only and removed from the address bar.
+ */
+export function apiTokenTake(): string | null {
+  const hash = new URLSearchParams(window.location.hash.slice(1));
+  const fromHash = hash.get('token');
+  if (fromHash) {
+    sessionStorage.setItem(TOKEN_KEY, fromHash);
+    history.replaceState(null, '', window.location.pathname + window.location.search);
+    return fromHash;
+  }
+  return sessionStorage.getItem(TOKEN_KEY);
+}
+
+let token: string | null = null;
+
+/** Calls a handler of the API contract on the backend that served this page. */
+export async function apiCall<N extends HandlerName>(name: N, input: HandlerInput<N>): Promise<HandlerOutput<N>> {
+  token ??= apiTokenTake();
+  if (!token) throw new ApiCallError(401, 'This page was opened without its access token: open the address RideLedger printed.');
+  const res = await fetch(`api/call/${name}`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'x-rideledger-token': token },
+    body: JSON.stringify(input),
+  });
+  const body = (await res.json().catch(() => ({}))) as { value?: unknown; error?: { message?: string; field?: string } };
+  if (!res.ok) throw new ApiCallError(res.status, body.error?.message ?? `request failed (${res.status})`, body.error?.field);
+  return body.value as HandlerOutput<N>;
+}
