@@ -209,8 +209,11 @@ export class EventRecorder {
       const v = sign * (this.end[o] as number);
       const p = this.prev[i] as number;
       const best = this.best[i] as number;
-      if (p >= (this.prev2[i] as number) && p >= v && p >= best - REFINE_MARGIN * Math.abs(best)) {
-        const peak = scalarMaximum((t) => sign * this.outputAt(step, o, t), from, t1, t0, 1e-6 * (t1 - from));
+      const p2 = this.prev2[i] as number;
+      // A strict local maximum of the samples (a flat run, such as no bump-stop force, is none).
+      if (p >= p2 && p >= v && (p > p2 || p > v) && p >= best - REFINE_MARGIN * Math.abs(best)) {
+        // 1e-4 of the interval in time: the value's error goes as its square.
+        const peak = scalarMaximum((t) => sign * this.outputAt(step, o, t), from, t1, t0, 1e-4 * (t1 - from));
         if (peak.value > best) {
           this.best[i] = peak.value;
           this.bestTime[i] = peak.x;
