@@ -1,4 +1,4 @@
-import { cubicHermiteAt, cubicHermiteMonotone, type CubicHermite } from './cubic-hermite';
+import { cubicHermiteAt, cubicHermiteThroughOrigin, type CubicHermite } from './cubic-hermite';
 
 /** One point of a progressive bump stop: its own compression (m) and force (N), magnitudes. */
 export type BumpStopPoint = { compression: number; force: number };
@@ -23,16 +23,13 @@ export type ReboundLimit = { travel: number; rate: number };
  */
 export const REBOUND_LIMIT_DEFAULT_RATE = 1e6;
 
-const CURVES = new WeakMap<readonly BumpStopPoint[], CubicHermite>();
-
-/** The monotone cubic through (0, 0) and a bump stop's curve points, built once per curve. */
+/** The monotone cubic through (0, 0) and a bump stop's curve points (see cubic-hermite.ts). */
 export function bumpStopInterpolant(curve: readonly BumpStopPoint[]): CubicHermite {
-  let c = CURVES.get(curve);
-  if (!c) {
-    c = cubicHermiteMonotone([0, ...curve.map((p) => p.compression)], [0, ...curve.map((p) => p.force)]);
-    CURVES.set(curve, c);
-  }
-  return c;
+  return cubicHermiteThroughOrigin(
+    curve,
+    (p) => p.compression,
+    (p) => p.force,
+  );
 }
 
 /**

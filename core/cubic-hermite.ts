@@ -54,6 +54,25 @@ export function cubicHermiteMonotone(xs: ArrayLike<number>, ys: ArrayLike<number
   return { x, y, slope };
 }
 
+const THROUGH_ORIGIN = new WeakMap<object, CubicHermite>();
+
+/**
+ * The monotone interpolant through (0, 0) and a curve's points (a damper table, a bump-stop
+ * curve), built once per points array: treat the array as immutable.
+ */
+export function cubicHermiteThroughOrigin<P>(
+  points: readonly P[],
+  xOf: (p: P) => number,
+  yOf: (p: P) => number,
+): CubicHermite {
+  let c = THROUGH_ORIGIN.get(points);
+  if (!c) {
+    c = cubicHermiteMonotone([0, ...points.map(xOf)], [0, ...points.map(yOf)]);
+    THROUGH_ORIGIN.set(points, c);
+  }
+  return c;
+}
+
 /**
  * Index of the cell [x_i, x_{i+1}) that holds `at`: 0 below the first knot, n − 2 at or past
  * the last (those cells' cubics are not used outside the knots; see cubicHermiteAt).
@@ -72,61 +91,36 @@ export function cubicHermiteCell(c: CubicHermite, at: number): number {
 }
 
 /**
- * Value of the interpolant at `at`; outside the knots it continues as a straight line with the
- * end slope (linear extrapolation).
+ * The curve at `at` (order 0) or its slope (order 1); outside the knots it continues as a
+ * straight line with the end slope (linear extrapolation).
  */
-export function cubicHermiteAt(c: CubicHermite, at: number): number {
+export function cubicHermiteAt(c: CubicHermite, at: number, order: 0 | 1 = 0): number {
   const x = c.x;
   const last = x.length - 1;
-  if (at <= (x[0] as number)) return (c.y[0] as number) + (c.slope[0] as number) * (at - (x[0] as number));
-  if (at >= (x[last] as number)) {
-    return (c.y[last] as number) + (c.slope[last] as number) * (at - (x[last] as number));
+  const end = at <= (x[0] as number) ? 0 : at >= (x[last] as number) ? last : -1;
+  if (end >= 0) {
+    const slope = c.slope[end] as number;
+    return order === 1 ? slope : (c.y[end] as number) + slope * (at - (x[end] as number));
   }
-  return cubicHermiteCellAt(c, cubicHermiteCell(c, at), at);
+  return cubicHermiteCellAt(c, cubicHermiteCell(c, at), at, order);
 }
 
-/** Slope d/dx of the interpolant at `at` (the end slope outside the knots). */
-export function cubicHermiteSlopeAt(c: CubicHermite, at: number): number {
-  const x = c.x;
-  const last = x.length - 1;
-  if (at <= (x[0] as number)) return c.slope[0] as number;
-  if (at >= (x[last] as number)) return c.slope[last] as number;
-  return cubicHermiteCellSlopeAt(c, cubicHermiteCell(c, at), at);
-}
-
-/** Cubic Hermite of cell `i` evaluated at `at` (any `at`: the cell's cubic extended). */
-export function cubicHermiteCellAt(c: CubicHermite, i: number, at: number): number {
+/**
+ * Cell `i`'s cubic at `at` — its value (order 0), slope (1) or second derivative (2) — for any
+ * `at`: outside the cell it is the cell's cubic extended, smooth.
+ */
+export function cubicHermiteCellAt(c: CubicHermite, i: number, at: number, order: 0 | 1 | 2 = 0): number {
   const x0 = c.x[i] as number;
   const h = (c.x[i + 1] as number) - x0;
   const t = (at - x0) / h;
   const y0 = c.y[i] as number;
-  const y1 = c.y[i + 1] as number;
   const m0 = (c.slope[i] as number) * h;
+  const dy = (c.y[i + 1] as number) - y0;
   const m1 = (c.slope[i + 1] as number) * h;
-  // Hermite basis in Horner form: y0 + t(m0 + t(3(y1−y0) − 2m0 − m1 + t(2(y0−y1) + m0 + m1))).
-  return y0 + t * (m0 + t * (3 * (y1 - y0) - 2 * m0 - m1 + t * (2 * (y0 - y1) + m0 + m1)));
-}
-
-/** Slope of cell `i`'s cubic at `at`. */
-export function cubicHermiteCellSlopeAt(c: CubicHermite, i: number, at: number): number {
-  const x0 = c.x[i] as number;
-  const h = (c.x[i + 1] as number) - x0;
-  const t = (at - x0) / h;
-  const y0 = c.y[i] as number;
-  const y1 = c.y[i + 1] as number;
-  const m0 = (c.slope[i] as number) * h;
-  const m1 = (c.slope[i + 1] as number) * h;
-  return (m0 + t * (2 * (3 * (y1 - y0) - 2 * m0 - m1) + 3 * t * (2 * (y0 - y1) + m0 + m1))) / h;
-}
-
-/** Second derivative of cell `i`'s cubic at `at`. */
-export function cubicHermiteCellCurvatureAt(c: CubicHermite, i: number, at: number): number {
-  const x0 = c.x[i] as number;
-  const h = (c.x[i + 1] as number) - x0;
-  const t = (at - x0) / h;
-  const y0 = c.y[i] as number;
-  const y1 = c.y[i + 1] as number;
-  const m0 = (c.slope[i] as number) * h;
-  const m1 = (c.slope[i + 1] as number) * h;
-  return (2 * (3 * (y1 - y0) - 2 * m0 - m1) + 6 * t * (2 * (y0 - y1) + m0 + m1)) / (h * h);
+  // The Hermite cubic in powers of t: y0 + m0·t + c2·t² + c3·t³.
+  const c2 = 3 * dy - 2 * m0 - m1;
+  const c3 = m0 + m1 - 2 * dy;
+  if (order === 0) return y0 + t * (m0 + t * (c2 + t * c3));
+  if (order === 1) return (m0 + t * (2 * c2 + 3 * t * c3)) / h;
+  return (2 * c2 + 6 * t * c3) / (h * h);
 }

@@ -1,5 +1,5 @@
 import { InputError, inputFieldPath } from './input-error';
-import { cubicHermiteAt, cubicHermiteMonotone, type CubicHermite } from './cubic-hermite';
+import { cubicHermiteAt, cubicHermiteThroughOrigin, type CubicHermite } from './cubic-hermite';
 import { pointTableParse, pointTableToFile } from './point-table';
 import { quantityParse, quantityText, type UnitSystem } from './units';
 
@@ -36,19 +36,13 @@ export type DamperSlopes = { lowSpeed: number; highSpeed: number; kneeSpeed: num
  */
 export const DAMPER_TABLE_LOW_SPEED_LIMIT = 0.05;
 
-const TABLE_INTERPOLANTS = new WeakMap<readonly DamperPoint[], CubicHermite>();
-
-/**
- * The monotone cubic through (0, 0) and a table's points (Fritsch–Carlson; see
- * cubic-hermite.ts), built once per points array.
- */
+/** The monotone cubic through (0, 0) and a table's points (Fritsch–Carlson; see cubic-hermite.ts). */
 export function damperTableInterpolant(points: readonly DamperPoint[]): CubicHermite {
-  let c = TABLE_INTERPOLANTS.get(points);
-  if (!c) {
-    c = cubicHermiteMonotone([0, ...points.map((p) => p.velocity)], [0, ...points.map((p) => p.force)]);
-    TABLE_INTERPOLANTS.set(points, c);
-  }
-  return c;
+  return cubicHermiteThroughOrigin(
+    points,
+    (p) => p.velocity,
+    (p) => p.force,
+  );
 }
 
 /**

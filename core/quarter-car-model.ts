@@ -92,6 +92,11 @@ export class QuarterCarEventModel implements OdeSystem {
   /** Mode: road piece. */
   piece = 0;
 
+  // The tyre at the last `tireAt`: kt·δ (N), δ̇ (m/s) and kt·δ + ct·δ̇ (N).
+  private tireDeflectionForce = 0;
+  private tireDeflectionRate = 0;
+  private tireForce = 0;
+
   constructor(corner: CornerInput, road: RoadProfile, speed: number) {
     this.sprungMass = corner.cornerMass - corner.unsprungMass;
     this.unsprungMass = corner.unsprungMass;
@@ -123,16 +128,29 @@ export class QuarterCarEventModel implements OdeSystem {
     const zu = y[1] as number;
     const xd = this.damperMotionRatio * (zu - (y[0] as number));
     const vd = this.damperMotionRatio * ((y[3] as number) - (y[2] as number));
-    const deflectionForce = this.staticTireLoad + this.tireRate * (this.road.heightIn(this.piece, s) - zu);
-    const force =
-      deflectionForce + this.tireDamping * (this.speed * this.road.slopeIn(this.piece, s) - (y[3] as number));
-    this.contact = Math.min(deflectionForce, force) > 0;
+    this.tireAt(s, this.piece, zu, y[3] as number);
+    this.contact = Math.min(this.tireDeflectionForce, this.tireForce) > 0;
     this.stopOn = this.hasStop && xd > this.stopGap;
     this.topOn = this.hasTop && -xd > this.topTravel;
+    this.region = this.regionOf(vd);
+  }
+
+  /**
+   * The tyre at distance s on `piece` with the wheel at zu, vu: kt·δ, δ̇ and kt·δ + ct·δ̇, with
+   * δ = δ0 + zr − zu. It presses on the road while both forces are above zero.
+   */
+  private tireAt(s: number, piece: number, zu: number, vu: number): void {
+    this.tireDeflectionForce = this.staticTireLoad + this.tireRate * (this.road.heightIn(piece, s) - zu);
+    this.tireDeflectionRate = this.speed * this.road.slopeIn(piece, s) - vu;
+    this.tireForce = this.tireDeflectionForce + this.tireDamping * this.tireDeflectionRate;
+  }
+
+  /** The damper region that holds damper velocity vd: bounds[r] ≤ vd < bounds[r + 1]. */
+  private regionOf(vd: number): number {
     let region = 1;
     while (region < 3 && vd >= (this.bounds[region + 1] as number)) region++;
     while (region > 0 && vd < (this.bounds[region] as number)) region--;
-    this.region = region;
+    return region;
   }
 
   /** Damper force (N, compression positive) at damper velocity vd by the formula of `region`. */
@@ -153,18 +171,26 @@ export class QuarterCarEventModel implements OdeSystem {
     return this.stopCurve ? cubicHermiteAt(this.stopCurve, squeeze) : this.stopRate * squeeze;
   }
 
+  /**
+   * Suspension force beyond the static ms·g at the wheel (N, compression positive) for travel
+   * x and damper velocity vd, by the formulas of the given damper region and stop contacts.
+   */
+  private suspensionForce(x: number, vd: number, region: number, stopOn: boolean, topOn: boolean): number {
+    const mr = this.damperMotionRatio;
+    const xd = mr * x;
+    let damper = this.damperInRegion(region, vd);
+    if (stopOn) damper += this.stopForceAt(xd - this.stopGap);
+    if (topOn) damper -= this.topRate * (-xd - this.topTravel);
+    return this.wheelRate * x + mr * damper;
+  }
+
   derivative(t: number, y: Float64Array, dydt: Float64Array): void {
     const zs = y[0] as number;
     const zu = y[1] as number;
     const vs = y[2] as number;
     const vu = y[3] as number;
-    const mr = this.damperMotionRatio;
-    const x = zu - zs;
-    const xd = mr * x;
-    let damper = this.damperInRegion(this.region, mr * (vu - vs));
-    if (this.stopOn) damper += this.stopForceAt(xd - this.stopGap);
-    if (this.topOn) damper -= this.topRate * (-xd - this.topTravel);
-    const suspension = this.wheelRate * x + mr * damper;
+    const vd = this.damperMotionRatio * (vu - vs);
+    const suspension = this.suspensionForce(zu - zs, vd, this.region, this.stopOn, this.topOn);
     let tire = -this.staticTireLoad;
     if (this.contact) {
       const s = this.speed * t;
@@ -183,13 +209,8 @@ export class QuarterCarEventModel implements OdeSystem {
     const mr = this.damperMotionRatio;
     const xd = mr * (zu - (y[0] as number));
     const vd = mr * ((y[3] as number) - (y[2] as number));
-    const s = this.speed * t;
-    // The tyre presses on the road while it is deflected and the force is positive: kt·δ and
-    // kt·δ + ct·δ̇ both above zero.
-    const deflectionForce = this.staticTireLoad + this.tireRate * (this.road.heightIn(this.piece, s) - zu);
-    const force =
-      deflectionForce + this.tireDamping * (this.speed * this.road.slopeIn(this.piece, s) - (y[3] as number));
-    const onRoad = deflectionForce < force ? deflectionForce : force;
+    this.tireAt(this.speed * t, this.piece, zu, y[3] as number);
+    const onRoad = Math.min(this.tireDeflectionForce, this.tireForce);
     g[0] = this.contact ? onRoad : -onRoad;
     g[1] = this.hasStop ? (this.stopOn ? xd - this.stopGap : this.stopGap - xd) : Infinity;
     g[2] = this.hasTop ? (this.topOn ? -xd - this.topTravel : this.topTravel + xd) : Infinity;
@@ -205,16 +226,15 @@ export class QuarterCarEventModel implements OdeSystem {
     const xdRate = mr * (vu - vs);
     const vdRate = mr * ((dydt[3] as number) - (dydt[2] as number));
     const s = this.speed * t;
-    const p = this.piece;
-    const deflectionRate = this.speed * this.road.slopeIn(p, s) - vu;
-    const deflectionForce = this.staticTireLoad + this.tireRate * (this.road.heightIn(p, s) - zu);
-    const force = deflectionForce + this.tireDamping * deflectionRate;
+    this.tireAt(s, this.piece, zu, vu);
+    const deflectionRate = this.tireDeflectionRate;
     // The rate of whichever of kt·δ and kt·δ + ct·δ̇ is the smaller, as `switches` takes it.
     const onRoadRate =
-      deflectionForce < force
+      this.tireDeflectionForce <= this.tireForce
         ? this.tireRate * deflectionRate
         : this.tireRate * deflectionRate +
-          this.tireDamping * (this.speed * this.speed * this.road.curvatureIn(p, s) - (dydt[3] as number));
+          this.tireDamping *
+            (this.speed * this.speed * this.road.curvatureIn(this.piece, s) - (dydt[3] as number));
     rates[0] = this.contact ? onRoadRate : -onRoadRate;
     rates[1] = this.stopOn ? xdRate : -xdRate;
     rates[2] = this.topOn ? -xdRate : xdRate;
@@ -264,26 +284,20 @@ export class QuarterCarEventModel implements OdeSystem {
     const x = zu - zs;
     const xd = mr * x;
     const vd = mr * (vu - vs);
-    let damper =
-      vd >= 0
-        ? directionForce(this.bump, vd, vd > this.bump.knee)
-        : -directionForce(this.rebound, -vd, -vd > this.rebound.knee);
-    const stop = this.hasStop && xd > this.stopGap ? this.stopForceAt(xd - this.stopGap) : 0;
-    damper += stop;
-    if (this.hasTop && -xd > this.topTravel) damper -= this.topRate * (-xd - this.topTravel);
-    const suspension = this.wheelRate * x + mr * damper;
+    const stopOn = this.hasStop && xd > this.stopGap;
+    const topOn = this.hasTop && -xd > this.topTravel;
+    const suspension = this.suspensionForce(x, vd, this.regionOf(vd), stopOn, topOn);
+    const stop = stopOn ? this.stopForceAt(xd - this.stopGap) : 0;
     const s = this.speed * t;
-    const zr = this.road.heightIn(piece, s);
-    const deflectionForce = this.staticTireLoad + this.tireRate * (zr - zu);
-    const force = deflectionForce + this.tireDamping * (this.speed * this.road.slopeIn(piece, s) - vu);
+    this.tireAt(s, piece, zu, vu);
     out[OUTPUT.bodyAccel] = suspension / this.sprungMass;
     out[OUTPUT.bodyDisplacement] = zs;
     out[OUTPUT.wheelDisplacement] = zu;
     out[OUTPUT.travel] = x;
     out[OUTPUT.damperVelocity] = vd;
-    out[OUTPUT.tireLoad] = deflectionForce > 0 && force > 0 ? force : 0;
+    out[OUTPUT.tireLoad] = this.tireDeflectionForce > 0 && this.tireForce > 0 ? this.tireForce : 0;
     out[OUTPUT.bumpStopForce] = stop;
-    out[OUTPUT.roadHeight] = zr;
+    out[OUTPUT.roadHeight] = this.road.heightIn(piece, s);
     out[OUTPUT.bodyVelocity] = vs;
     out[OUTPUT.wheelVelocity] = vu;
   }

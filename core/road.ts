@@ -1,9 +1,7 @@
 import { InputError, inputFieldPath } from './input-error';
 import {
-  cubicHermiteCellAt,
-  cubicHermiteCellCurvatureAt,
-  cubicHermiteCellSlopeAt,
   cubicHermiteCell,
+  cubicHermiteCellAt,
   cubicHermiteMonotone,
   type CubicHermite,
 } from './cubic-hermite';
@@ -277,8 +275,8 @@ function roadSampled(c: CubicHermite): RoadProfile {
         : p === 2
           ? (c.y[lastIndex] as number)
           : cubicHermiteCellAt(c, cellOf(s), s),
-    slopeIn: (p, s) => (p === 1 ? cubicHermiteCellSlopeAt(c, cellOf(s), s) : 0),
-    curvatureIn: (p, s) => (p === 1 ? cubicHermiteCellCurvatureAt(c, cellOf(s), s) : 0),
+    slopeIn: (p, s) => (p === 1 ? cubicHermiteCellAt(c, cellOf(s), s, 1) : 0),
+    curvatureIn: (p, s) => (p === 1 ? cubicHermiteCellAt(c, cellOf(s), s, 2) : 0),
   };
 }
 
@@ -346,7 +344,7 @@ export function roadProfileMeasured(
     breaks: [c.x[0] as number, c.x[last] as number],
     heightIn: (p, s) =>
       p === 0 ? 0 : p === 2 ? (c.y[last] as number) : cubicHermiteCellAt(c, cubicHermiteCell(c, s), s),
-    slopeIn: (p, s) => (p === 1 ? cubicHermiteCellSlopeAt(c, cubicHermiteCell(c, s), s) : 0),
-    curvatureIn: (p, s) => (p === 1 ? cubicHermiteCellCurvatureAt(c, cubicHermiteCell(c, s), s) : 0),
+    slopeIn: (p, s) => (p === 1 ? cubicHermiteCellAt(c, cubicHermiteCell(c, s), s, 1) : 0),
+    curvatureIn: (p, s) => (p === 1 ? cubicHermiteCellAt(c, cubicHermiteCell(c, s), s, 2) : 0),
   };
 }

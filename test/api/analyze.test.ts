@@ -5,6 +5,7 @@ import { cornerFileParse } from '../../core/corner-file';
 import { eventBump } from '../../core/event';
 import { InputError } from '../../core/input-error';
 import { eventSimulate } from '../../core/simulate';
+import { MILLBROOK_FRONT_LEFT } from '../core/demo-corner';
 
 const demo = (name: string): Record<string, unknown> =>
   JSON.parse(readFileSync(new URL(`../../assets/demo/${name}`, import.meta.url), 'utf8')) as Record<
@@ -30,6 +31,8 @@ describe('analyzeCorner: the bump section', () => {
       ].sort(),
     );
     const file = cornerFileParse(raw);
+    // The event tests' corner is this demo file's.
+    expect(file.corner).toEqual(MILLBROOK_FRONT_LEFT);
     const m = eventSimulate(file.corner, eventBump(file.bump as NonNullable<typeof file.bump>)).metrics;
     expect(bump.peakBodyAccel).toBe(m.peakBodyAccel);
     expect(bump.airborneTime).toBe(m.airborneTime);

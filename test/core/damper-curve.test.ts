@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { cubicHermiteAt, cubicHermiteMonotone, cubicHermiteSlopeAt } from '../../core/cubic-hermite';
+import { cubicHermiteAt, cubicHermiteMonotone } from '../../core/cubic-hermite';
 import {
   DAMPER_TABLE_LOW_SPEED_LIMIT,
   damperCurveFit,
@@ -40,7 +40,7 @@ describe('monotone cubic (Fritsch–Carlson)', () => {
     expect(c.slope[0]).toBe(1);
     expect(c.slope[2]).toBe(3);
     expect(cubicHermiteAt(c, 3)).toBe(7);
-    expect(cubicHermiteSlopeAt(c, 2.5)).toBe(3);
+    expect(cubicHermiteAt(c, 2.5, 1)).toBe(3);
     expect(cubicHermiteAt(c, -1)).toBe(-1);
   });
 

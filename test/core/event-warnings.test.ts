@@ -3,20 +3,14 @@ import type { CornerInput } from '../../core/corner';
 import { eventBump } from '../../core/event';
 import { eventWarnings } from '../../core/event-warnings';
 import type { EventMetrics } from '../../core/metrics';
+import { MILLBROOK_FRONT_LEFT } from './demo-corner';
 
 const CORNER: CornerInput = {
-  cornerMass: 295,
-  unsprungMass: 38,
-  springRate: 70_000,
-  springMotionRatio: 0.9,
-  damperMotionRatio: 0.9,
-  tireRate: 240_000,
-  tireDamping: 0,
+  ...MILLBROOK_FRONT_LEFT,
   damper: {
     bump: { kind: 'table', points: [{ velocity: 0.5, force: 900 }] },
     rebound: { kind: 'linear', coefficient: 5000 },
   },
-  bumpStop: { gap: 0.03, rate: 250_000 },
   reboundLimit: { travel: 0.04, rate: 1e6 },
   travelLimit: 0.05,
 };

@@ -6,6 +6,7 @@ import { damperForce } from '../../core/damper-curve';
 import { eventBump, eventCurb, eventPothole, type RoadEvent } from '../../core/event';
 import { roadHeight, roadSlope } from '../../core/road';
 import { eventSimulate } from '../../core/simulate';
+import { MILLBROOK_FRONT_LEFT } from './demo-corner';
 
 /**
  * The event as a plain, non-smooth right-hand side written from DESIGN.md's conventions (no
@@ -91,17 +92,8 @@ function odexReference(c: CornerInput, ev: RoadEvent) {
 }
 
 const COUPE: CornerInput = {
-  cornerMass: 295,
-  unsprungMass: 38,
-  springRate: 70_000,
-  springMotionRatio: 0.9,
-  damperMotionRatio: 0.9,
-  tireRate: 240_000,
+  ...MILLBROOK_FRONT_LEFT,
   tireDamping: 150,
-  damper: {
-    bump: { kind: 'bilinear', lowSpeed: 3200, kneeSpeed: 0.08, highSpeed: 1100 },
-    rebound: { kind: 'bilinear', lowSpeed: 5600, kneeSpeed: 0.08, highSpeed: 1900 },
-  },
   bumpStop: { gap: 0.015, rate: 250_000 },
 };
 

@@ -10,22 +10,9 @@ import type { SimulationHistory } from '../../core/metrics';
 import { roadLevel, roadProfileIso8608, type RoadProfile } from '../../core/road';
 import { sdofLogDecrement, sdofStepOvershoot } from '../../core/sdof';
 import { eventSimulate, SIMULATE_REL_TOL } from '../../core/simulate';
+import { MILLBROOK_FRONT_LEFT } from './demo-corner';
 
-/** The invented Millbrook club coupe, front left (assets/demo), SI. */
-const COUPE: CornerInput = {
-  cornerMass: 295,
-  unsprungMass: 38,
-  springRate: 70_000,
-  springMotionRatio: 0.9,
-  damperMotionRatio: 0.9,
-  tireRate: 240_000,
-  tireDamping: 0,
-  damper: {
-    bump: { kind: 'bilinear', lowSpeed: 3200, kneeSpeed: 0.08, highSpeed: 1100 },
-    rebound: { kind: 'bilinear', lowSpeed: 5600, kneeSpeed: 0.08, highSpeed: 1900 },
-  },
-  bumpStop: { gap: 0.03, rate: 250_000 },
-};
+const COUPE = MILLBROOK_FRONT_LEFT;
 const staticLoad = COUPE.cornerMass * STANDARD_GRAVITY;
 
 /** A corner with one linear damper coefficient in both directions (the linear model's). */
