@@ -1,4 +1,4 @@
-import type { CornerInput } from './corner';
+import { cornerSprungMass, cornerWheelRate, STANDARD_GRAVITY, type CornerInput } from './corner';
 import { damperDirectionDataLimit } from './damper-curve';
 import type { RoadEvent } from './event';
 import type { EventMetrics } from './metrics';
@@ -12,8 +12,9 @@ const speed = (v: number) => quantityFormat(v, 'velocity', 'si');
 
 /**
  * Warnings from an event's metrics (DESIGN.md, Cautions): tyre lift-off, bump stop engaged,
- * travel beyond the entered limit, the rebound limit reached, and shaft speeds past the last
- * point of a tabulated damper curve (where the force is extrapolated).
+ * travel beyond the entered limit, the rebound limit reached, shaft speeds past the last point
+ * of a tabulated damper curve (where the force is extrapolated), and extension past the point
+ * where the spring is unloaded (the model's spring would pull there; a real one goes slack).
  */
 export function eventWarnings(corner: CornerInput, event: RoadEvent, m: EventMetrics): ModelWarning[] {
   const out: ModelWarning[] = [];
@@ -45,6 +46,17 @@ export function eventWarnings(corner: CornerInput, event: RoadEvent, m: EventMet
       code: 'rebound-limit-reached',
       field: 'reboundLimit',
       message: `The damper tops out (extends past ${mm(corner.reboundLimit.travel)}) for ${msText(m.reboundLimitContactTime)} over ${event.label}: the wheel hangs from the damper and the tyre unloads.`,
+    });
+  }
+  // At rest the spring carries the sprung weight less the gas force's share (at the wheel):
+  // extended further than that, it has nothing left to push with.
+  const springPreload = cornerSprungMass(corner) * STANDARD_GRAVITY - mr * (corner.damper.gasForce ?? 0);
+  const slackAt = springPreload / cornerWheelRate(corner);
+  if (m.maxExtension > slackAt && m.reboundLimitContactTime === 0) {
+    out.push({
+      code: 'spring-unloaded',
+      field: 'springRate',
+      message: `Over ${event.label} the wheel drops ${mm(m.maxExtension)} below static, past the ${mm(slackAt)} at which the spring is unloaded: on the car it would go slack (or a helper spring or droop limiter takes over), while the model keeps it pulling, so its figures past that point are not to be trusted; enter the rebound limit if the damper tops out first.`,
     });
   }
   const peaks = { bump: m.peakDamperVelocityBump, rebound: m.peakDamperVelocityRebound } as const;

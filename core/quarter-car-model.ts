@@ -26,9 +26,6 @@ function directionForce(d: DirectionLoop, u: number, aboveKnee: boolean): number
   return aboveKnee ? d.low * d.knee + d.high * (u - d.knee) : d.low * u;
 }
 
-/** Indices of the model's switching functions (OdeSystem.switches). */
-export const SWITCH = { tire: 0, bumpStop: 1, reboundLimit: 2, damperBelow: 3, damperAbove: 4 } as const;
-
 /** Outputs of the model at one instant (QuarterCarEventModel.outputs), in this order. */
 export const OUTPUT = {
   bodyAccel: 0,
@@ -54,7 +51,9 @@ export const OUTPUT_COUNT = 10;
  *
  * Modes — tyre in contact, bump stop touching, top-out touching, damper region (rebound above
  * or below the knee, bump below or above), road piece — are frozen within a step and switched
- * where the integrator locates their boundary.
+ * where the integrator locates their boundary. Switch values, in order: tyre on the road
+ * (N), bump-stop gap (m), rebound travel left (m), damper velocity above the region's lower
+ * bound and below its upper bound (m/s).
  */
 export class QuarterCarEventModel implements OdeSystem {
   readonly dimension = 4;

@@ -70,6 +70,19 @@ describe('eventWarnings', () => {
     expect(w[4]?.message).toMatch(/0\.800 m\/s in bump, past the last point of its curve \(0\.500 m\/s\)/);
   });
 
+  it('warns when the wheel drops past the point where the spring is unloaded, unless the damper tops out first', () => {
+    // [calc] sprung weight 257·9.80665 = 2520 N, less 0.9 × 100 N of gas, over the wheel rate
+    // 56 700 N/m: the spring is unloaded 42.9 mm below static.
+    const corner = { ...CORNER, damper: { ...CORNER.damper, gasForce: 100 } };
+    const codes = (ext: number, top = 0) =>
+      eventWarnings(corner, EVENT, { ...QUIET, maxExtension: ext, reboundLimitContactTime: top }).map(
+        (w) => w.code,
+      );
+    expect(codes(0.042)).toEqual([]);
+    expect(codes(0.044)).toEqual(['spring-unloaded']);
+    expect(codes(0.044, 0.01)).toEqual(['rebound-limit-reached']);
+  });
+
   it('compares travel at the damper, where the limit is entered', () => {
     // 55 mm at the wheel is 49.5 mm at the damper (MRd 0.9): inside the 50 mm.
     expect(eventWarnings(CORNER, EVENT, { ...QUIET, maxCompression: 0.055 })).toEqual([]);

@@ -46,7 +46,8 @@ export const SIMULATE_USAGE = `rideledger simulate FILE --event bump|step|curb|p
   --points N      rows of the history, evenly spaced (default ${EVENT_DEFAULTS.historyPoints})
   --json          print the figures as one JSON object (SI)
   --units si|us   units of the printed figures
-  --speed V       speed over the event (default: the file's bump speed, else its road speed)
+  --speed V       speed over the event (default: the file's bump speed, else its road speed;
+                  for --event road the other way round)
   --height H      bump, step or curb height, pothole depth (bump: the file's bump;
                   step ${EVENT_DEFAULTS.step.height * 1000} mm, curb ${EVENT_DEFAULTS.curb.height * 1000} mm, pothole ${EVENT_DEFAULTS.pothole.depth * 1000} mm)
   --length L      bump or pothole length (bump: the file's; pothole ${EVENT_DEFAULTS.pothole.length} m)
@@ -98,7 +99,9 @@ export async function eventFromOptions(
   values: Values,
   file: CornerFile,
 ): Promise<RoadEvent> {
-  const fileSpeed = file.bump?.speed ?? file.road?.speed;
+  // A road event runs at the file's road speed, the others at its bump speed, when given.
+  const fileSpeed =
+    kind === 'road' ? (file.road?.speed ?? file.bump?.speed) : (file.bump?.speed ?? file.road?.speed);
   const speed = required(
     optionQuantity(values, 'speed', 'speed') ?? fileSpeed,
     '--speed is needed: the file has no bump or road speed (e.g. --speed "60 km/h")',
