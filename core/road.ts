@@ -314,7 +314,8 @@ export function roadProfileIso8608(spec: Iso8608ProfileSpec, field = 'road'): Ro
 /**
  * A measured road from (distance, elevation) points (m), distances rising: a shape-preserving
  * monotone cubic between points (no overshoot, so no invented bumps), heights relative to the
- * first point, level before the first point and after the last.
+ * first point, level before the first point and after the last. Every point is a break, so an
+ * integration steps onto each one and cannot stride over a short feature in a long flat run.
  * @throws InputError naming the offending point (`field[i]`).
  */
 export function roadProfileMeasured(
@@ -339,12 +340,13 @@ export function roadProfileMeasured(
     points.map((p) => p[0]),
     points.map((p) => p[1] - first),
   );
-  const last = points.length - 1;
+  const n = points.length;
+  // Piece 0 is before the first point, piece i the cell from point i − 1 to i, piece n after the last.
+  const inside = (p: number) => p > 0 && p < n;
   return {
-    breaks: [c.x[0] as number, c.x[last] as number],
-    heightIn: (p, s) =>
-      p === 0 ? 0 : p === 2 ? (c.y[last] as number) : cubicHermiteCellAt(c, cubicHermiteCell(c, s), s),
-    slopeIn: (p, s) => (p === 1 ? cubicHermiteCellAt(c, cubicHermiteCell(c, s), s, 1) : 0),
-    curvatureIn: (p, s) => (p === 1 ? cubicHermiteCellAt(c, cubicHermiteCell(c, s), s, 2) : 0),
+    breaks: Array.from(c.x),
+    heightIn: (p, s) => (p === 0 ? 0 : p >= n ? (c.y[n - 1] as number) : cubicHermiteCellAt(c, p - 1, s)),
+    slopeIn: (p, s) => (inside(p) ? cubicHermiteCellAt(c, p - 1, s, 1) : 0),
+    curvatureIn: (p, s) => (inside(p) ? cubicHermiteCellAt(c, p - 1, s, 2) : 0),
   };
 }

@@ -241,7 +241,7 @@ describe('measured road', () => {
     // Shape preserving: between 4 and 5 (equal heights) it stays flat; never above the data's top.
     for (let s = 2; s <= 6; s += 0.01) expect(roadHeight(r, s)).toBeLessThanOrEqual(0.03 + 1e-15);
     expect(roadHeight(r, 4.5)).toBeCloseTo(0.03, 12);
-    expect(r.breaks).toEqual([2, 6]);
+    expect(r.breaks).toEqual([2, 3, 4, 5, 6]);
   });
 
   it('names the point that is wrong', () => {

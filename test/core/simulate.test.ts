@@ -7,7 +7,7 @@ import { complexAbs } from '../../core/complex';
 import { eventBump, eventCurb, eventPothole, eventRoad, eventStep, type RoadEvent } from '../../core/event';
 import { frequencyResponseAt } from '../../core/frequency-response';
 import type { SimulationHistory } from '../../core/metrics';
-import { roadLevel, roadProfileIso8608, type RoadProfile } from '../../core/road';
+import { roadLevel, roadProfileIso8608, roadProfileMeasured, type RoadProfile } from '../../core/road';
 import { sdofLogDecrement, sdofStepOvershoot } from '../../core/sdof';
 import { eventSimulate, SIMULATE_REL_TOL } from '../../core/simulate';
 import { MILLBROOK_FRONT_LEFT } from './demo-corner';
@@ -488,6 +488,23 @@ describe('eventSimulate accuracy and output', () => {
     expect(Math.abs(airborne - m.airborneTime)).toBeLessThan(5e-4);
     // History samples are the same states as a fresh run's (no drift between runs).
     expect(eventSimulate(COUPE, ev).metrics).toEqual(m);
+  });
+
+  it('sees a short feature in a long flat run of a measured road at any speed', () => {
+    // A 30 mm, 0.8 m plateau 5 m down a flat 30 m road: nothing happens before it, so an
+    // integrator free to grow its step could stride over it; the measured points stop it.
+    const road = roadProfileMeasured([
+      [0, 0],
+      [5, 0],
+      [5.2, 0.03],
+      [5.6, 0.03],
+      [5.8, 0],
+      [30, 0],
+    ]);
+    for (const speed of [8, 14, 20, 25]) {
+      const m = eventSimulate(COUPE, eventRoad(road, speed, 'plateau')).metrics;
+      expect(m.maxCompression).toBeGreaterThan(0.01);
+    }
   });
 
   it('names the bad input of an event', () => {
