@@ -1,10 +1,5 @@
 import { InputError, inputFieldPath } from './input-error';
-import {
-  cubicHermiteCell,
-  cubicHermiteCellAt,
-  cubicHermiteMonotone,
-  type CubicHermite,
-} from './cubic-hermite';
+import { cubicHermiteCellAt, cubicHermiteMonotone, type CubicHermite } from './cubic-hermite';
 import { ISO8608_BAND, ISO8608_N0, iso8608ClassGd0, type Iso8608Class } from './random-road';
 import { seededRandom } from './seeded-random';
 
