@@ -39,6 +39,7 @@ export const OUTPUT = {
   bodyVelocity: 8,
   wheelVelocity: 9,
 } as const;
+/** How many outputs QuarterCarEventModel.outputs writes. */
 export const OUTPUT_COUNT = 10;
 
 /**
