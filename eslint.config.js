@@ -54,6 +54,8 @@ export default tseslint.config(
   { files: ['db/**/*.ts'], rules: { 'no-restricted-imports': ['error', dbBans] } },
   {
     files: ['app/renderer/**/*.{ts,tsx}'],
+    // The build config runs in Node, not in the page.
+    ignores: ['app/renderer/vite.config.ts'],
     languageOptions: { globals: { ...globals.browser } },
     rules: { 'no-restricted-imports': ['error', rendererBans] },
   },

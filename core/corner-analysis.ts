@@ -1,16 +1,20 @@
 import { cornerQuarterCar, cornerRideFigures, type CornerFigures, type QuarterCarLinear } from './corner';
 import type { CornerFile } from './corner-file';
+import { eventBump, type RoadEvent } from './event';
+import { eventWarnings } from './event-warnings';
 import {
   DEFAULT_RESPONSE_FREQUENCIES_HZ,
   frequencyResponseMagnitudeAt,
   type FrequencyResponseMagnitude,
 } from './frequency-response';
+import type { EventMetrics } from './metrics';
 import { modesOf, type Modes } from './modal';
 import { randomRoadResponse, type RandomRoadResponse } from './random-road';
+import { eventSimulate } from './simulate';
 import { stepResponseLinear, type StepResponse } from './step-response';
 import { cornerWarnings, type ModelWarning } from './warnings';
 
-/** Everything the linear analysis of one corner file gives, SI. */
+/** Everything the analysis of one corner file gives, SI. */
 export type CornerAnalysis = {
   name: string;
   /** The file as read, SI. */
@@ -20,14 +24,16 @@ export type CornerAnalysis = {
   modes: Modes;
   frf: FrequencyResponseMagnitude[];
   randomRoad?: RandomRoadResponse;
+  /** The file's bump on the nonlinear quarter car, when the file has one. */
+  bump?: { event: RoadEvent; metrics: EventMetrics };
   step: StepResponse;
   warnings: ModelWarning[];
 };
 
 /**
- * The linear analysis of a corner file: ride figures, modes, frequency response at
- * `frequencies` (Hz), random-road RMS figures when the file has a road, the 10 mm step,
- * and the warnings.
+ * The analysis of a corner file: ride figures, modes, frequency response at `frequencies`
+ * (Hz), random-road RMS figures when the file has a road, the linear 10 mm step, the file's
+ * bump simulated on the nonlinear quarter car when it has one, and the warnings of all of them.
  */
 export function cornerAnalyze(
   file: CornerFile,
@@ -50,5 +56,11 @@ export function cornerAnalyze(
     warnings: cornerWarnings(figures, modes, step),
   };
   if (file.road) analysis.randomRoad = randomRoadResponse(quarterCar, file.road);
+  if (file.bump) {
+    const event = eventBump(file.bump);
+    const metrics = eventSimulate(file.corner, event).metrics;
+    analysis.bump = { event, metrics };
+    analysis.warnings.push(...eventWarnings(file.corner, event, metrics));
+  }
   return analysis;
 }

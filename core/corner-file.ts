@@ -1,6 +1,8 @@
+import { REBOUND_LIMIT_DEFAULT_RATE, type BumpStop } from './bump-stop';
 import { cornerValidate, type CornerInput } from './corner';
 import { damperCurveParse, damperCurveToFile } from './damper-curve';
 import { InputError, inputFieldPath } from './input-error';
+import { pointTableParse, pointTableToFile } from './point-table';
 import { ISO8608_CLASSES, type Iso8608Class } from './random-road';
 import { numberParse, quantityParse, quantityText, type QuantityKind, type UnitSystem } from './units';
 
@@ -58,7 +60,41 @@ const CORNER_KEYS = [
   'tireDamping',
   'damper',
   'bumpStop',
+  'reboundLimit',
+  'travelLimit',
 ] as const;
+
+/** A progressive bump stop's own force–compression curve, as a file gives it. */
+const BUMP_STOP_CURVE_RULES = {
+  x: { kind: 'length', name: 'compression' },
+  y: { kind: 'force', name: 'force' },
+  positive: true,
+  nonDecreasing: true,
+  minPoints: 1,
+} as const;
+
+/** Reads `{gap, rate}` or `{gap, curve: [[compression, force], …]}` (both at the damper). */
+function bumpStopParse(raw: unknown, field: string): BumpStop {
+  const b = objectParse(raw, field, ['gap', 'rate', 'curve']);
+  const gap = requiredQuantity(b, 'gap', 'length', field);
+  if (b.rate !== undefined && b.curve !== undefined) {
+    throw new InputError(
+      inputFieldPath(field, 'curve'),
+      'cannot be given with rate: a bump stop has either a linear rate or a curve',
+    );
+  }
+  if (b.curve !== undefined) {
+    const points = pointTableParse(b.curve, inputFieldPath(field, 'curve'), BUMP_STOP_CURVE_RULES);
+    return { gap, curve: points.map(([compression, force]) => ({ compression, force })) };
+  }
+  if (b.rate === undefined) {
+    throw new InputError(
+      inputFieldPath(field, 'rate'),
+      'is missing: give the bump stop a rate, or a curve of [compression, force] points',
+    );
+  }
+  return { gap, rate: requiredQuantity(b, 'rate', 'stiffness', field) };
+}
 
 /**
  * Reads and validates a corner (quantities as SI numbers or strings with units).
@@ -89,13 +125,19 @@ export function cornerInputParse(raw: unknown, field = 'corner'): CornerInput {
     tireDamping: o.tireDamping === undefined ? 0 : quantityParse(o.tireDamping, 'damping', at('tireDamping')),
     damper: damperCurveParse(required(o, 'damper', field), at('damper')),
   };
-  if (o.bumpStop !== undefined) {
-    const b = objectParse(o.bumpStop, at('bumpStop'), ['gap', 'rate']);
-    corner.bumpStop = {
-      gap: requiredQuantity(b, 'gap', 'length', at('bumpStop')),
-      rate: requiredQuantity(b, 'rate', 'stiffness', at('bumpStop')),
+  if (o.bumpStop !== undefined) corner.bumpStop = bumpStopParse(o.bumpStop, at('bumpStop'));
+  if (o.reboundLimit !== undefined) {
+    const r = objectParse(o.reboundLimit, at('reboundLimit'), ['travel', 'rate']);
+    corner.reboundLimit = {
+      travel: requiredQuantity(r, 'travel', 'length', at('reboundLimit')),
+      rate:
+        r.rate === undefined
+          ? REBOUND_LIMIT_DEFAULT_RATE
+          : quantityParse(r.rate, 'stiffness', inputFieldPath(at('reboundLimit'), 'rate')),
     };
   }
+  if (o.travelLimit !== undefined)
+    corner.travelLimit = quantityParse(o.travelLimit, 'length', at('travelLimit'));
   cornerValidate(corner, field);
   return corner;
 }
@@ -150,11 +192,26 @@ export function cornerInputToFile(c: CornerInput, system: UnitSystem = 'si'): Re
     tireDamping: quantityText(c.tireDamping, 'damping', system),
     damper: damperCurveToFile(c.damper, system),
   };
-  if (c.bumpStop) {
-    file.bumpStop = {
-      gap: quantityText(c.bumpStop.gap, 'length', system),
-      rate: quantityText(c.bumpStop.rate, 'stiffness', system),
+  const b = c.bumpStop;
+  if (b) {
+    file.bumpStop =
+      'rate' in b
+        ? { gap: quantityText(b.gap, 'length', system), rate: quantityText(b.rate, 'stiffness', system) }
+        : {
+            gap: quantityText(b.gap, 'length', system),
+            curve: pointTableToFile(
+              b.curve.map((p) => [p.compression, p.force] as const),
+              { x: 'length', y: 'force' },
+              system,
+            ),
+          };
+  }
+  if (c.reboundLimit) {
+    file.reboundLimit = {
+      travel: quantityText(c.reboundLimit.travel, 'length', system),
+      rate: quantityText(c.reboundLimit.rate, 'stiffness', system),
     };
   }
+  if (c.travelLimit !== undefined) file.travelLimit = quantityText(c.travelLimit, 'length', system);
   return file;
 }

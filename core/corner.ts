@@ -1,11 +1,11 @@
+import type { BumpStop, ReboundLimit } from './bump-stop';
 import { damperDirectionSlopes, type DamperCurve } from './damper-curve';
 import { InputError, inputFieldPath } from './input-error';
 
+export type { BumpStop, ReboundLimit } from './bump-stop';
+
 /** Standard gravity (m/s²), as DESIGN.md fixes it for static loads. */
 export const STANDARD_GRAVITY = 9.80665;
-
-/** Bump stop at the damper: free gap before contact (m) and its rate (N/m). */
-export type BumpStop = { gap: number; rate: number };
 
 /**
  * One corner as the shop enters it, SI throughout. Rates and damping are at the
@@ -25,6 +25,13 @@ export type CornerInput = {
   tireDamping: number;
   damper: DamperCurve;
   bumpStop?: BumpStop;
+  /** Droop limit at the damper: extension travel from static and top-out rate. */
+  reboundLimit?: ReboundLimit;
+  /**
+   * Compression travel available at the damper from static ride height to full bump (m), as
+   * a shaft marker measures it; only for the "travel beyond the entered limit" warning.
+   */
+  travelLimit?: number;
 };
 
 /** The linearised quarter car at the wheel (DESIGN.md, Conventions). */
@@ -99,7 +106,13 @@ export function cornerValidate(c: CornerInput, field = 'corner'): void {
     throw new InputError(at('tireDamping'), `tyre damping must be zero or more (got ${c.tireDamping})`);
   }
   for (const dir of ['bump', 'rebound'] as const) {
-    const s = damperDirectionSlopes(c.damper[dir]);
+    const d = c.damper[dir];
+    const s = damperDirectionSlopes(d);
+    if (d.kind === 'table') {
+      // The table's own checks (pointTableParse) name the point; this catches an empty one.
+      requirePositive(s.lowSpeed, inputFieldPath(at('damper'), `${dir}.points`), `${dir} low-speed damping`);
+      continue;
+    }
     requirePositive(s.lowSpeed, inputFieldPath(at('damper'), `${dir}.lowSpeed`), `${dir} low-speed damping`);
     requirePositive(
       s.highSpeed,
@@ -107,13 +120,22 @@ export function cornerValidate(c: CornerInput, field = 'corner'): void {
       `${dir} high-speed damping`,
     );
   }
+  if (c.damper.gasForce !== undefined && !(c.damper.gasForce >= 0)) {
+    throw new InputError(at('damper.gasForce'), `gas force must be zero or more (got ${c.damper.gasForce})`);
+  }
   if (c.bumpStop) {
     const b = c.bumpStop;
     if (!Number.isFinite(b.gap) || b.gap < 0) {
       throw new InputError(at('bumpStop.gap'), `bump-stop gap must be zero or more (got ${b.gap})`);
     }
-    requirePositive(b.rate, at('bumpStop.rate'), 'bump-stop rate');
+    if ('rate' in b) requirePositive(b.rate, at('bumpStop.rate'), 'bump-stop rate');
+    else if (b.curve.length === 0) throw new InputError(at('bumpStop.curve'), 'needs at least one point');
   }
+  if (c.reboundLimit) {
+    requirePositive(c.reboundLimit.travel, at('reboundLimit.travel'), 'rebound travel');
+    requirePositive(c.reboundLimit.rate, at('reboundLimit.rate'), 'top-out rate');
+  }
+  if (c.travelLimit !== undefined) requirePositive(c.travelLimit, at('travelLimit'), 'travel limit');
 }
 
 /** Sprung mass ms = M − mu (kg). */

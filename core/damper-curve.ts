@@ -1,5 +1,10 @@
 import { InputError, inputFieldPath } from './input-error';
+import { cubicHermiteAt, cubicHermiteThroughOrigin, type CubicHermite } from './cubic-hermite';
+import { pointTableParse, pointTableToFile } from './point-table';
 import { quantityParse, quantityText, type UnitSystem } from './units';
+
+/** One bench point of one direction: shaft speed and force as magnitudes (m/s, N). */
+export type DamperPoint = { velocity: number; force: number };
 
 /**
  * Force–velocity curve of one damper direction, at the damper shaft, in SI.
@@ -7,25 +12,75 @@ import { quantityParse, quantityText, type UnitSystem } from './units';
  * - linear: F = c·v
  * - bilinear: F = c_ls·v up to the knee, then c_ls·v_knee + c_hs·(v − v_knee)
  *   (digressive when c_hs < c_ls, progressive when c_hs > c_ls)
+ * - table: bench points, speed rising and force never falling, joined through (0, 0) by a
+ *   monotone cubic (no overshoot between points) and continued as a straight line past the
+ *   last point. Treat the points as immutable: the interpolant is built once per table.
  */
 export type DamperDirectionCurve =
   | { kind: 'linear'; coefficient: number }
-  | { kind: 'bilinear'; lowSpeed: number; kneeSpeed: number; highSpeed: number };
+  | { kind: 'bilinear'; lowSpeed: number; kneeSpeed: number; highSpeed: number }
+  | { kind: 'table'; points: readonly DamperPoint[] };
 
-/** A damper: bump (compression, shaft velocity > 0) and rebound (extension) curves. */
-export type DamperCurve = { bump: DamperDirectionCurve; rebound: DamperDirectionCurve };
+/**
+ * A damper: bump (compression, shaft velocity > 0) and rebound (extension) curves, and the
+ * optional gas force (N, ≥ 0) with which the damper pushes its shaft out at rest.
+ */
+export type DamperCurve = { bump: DamperDirectionCurve; rebound: DamperDirectionCurve; gasForce?: number };
 
 /** The slopes that the linear figures use: low-speed and high-speed coefficients (N·s/m) and the knee (m/s). */
 export type DamperSlopes = { lowSpeed: number; highSpeed: number; kneeSpeed: number | null };
 
-/** Low- and high-speed slopes of one direction; a linear curve has one slope for both. */
+/**
+ * Where a table's low-speed slope ends (m/s): the middle of the 25–75 mm/s band in which race
+ * dampers usually split low from high shaft speed (common practice).
+ */
+export const DAMPER_TABLE_LOW_SPEED_LIMIT = 0.05;
+
+/** The monotone cubic through (0, 0) and a table's points (Fritsch–Carlson; see cubic-hermite.ts). */
+export function damperTableInterpolant(points: readonly DamperPoint[]): CubicHermite {
+  return cubicHermiteThroughOrigin(
+    points,
+    (p) => p.velocity,
+    (p) => p.force,
+  );
+}
+
+/**
+ * Low- and high-speed slopes of one direction; a linear curve has one slope for both. For a
+ * table: the low-speed slope is the secant F(v)/v of the curve at DAMPER_TABLE_LOW_SPEED_LIMIT
+ * (or at the last point, when the data stop before it), the high-speed slope the secant from
+ * there to the last point, and that limit is reported as the knee.
+ */
 export function damperDirectionSlopes(d: DamperDirectionCurve): DamperSlopes {
   switch (d.kind) {
     case 'linear':
       return { lowSpeed: d.coefficient, highSpeed: d.coefficient, kneeSpeed: null };
     case 'bilinear':
       return { lowSpeed: d.lowSpeed, highSpeed: d.highSpeed, kneeSpeed: d.kneeSpeed };
+    case 'table': {
+      const last = d.points[d.points.length - 1];
+      if (!last) return { lowSpeed: 0, highSpeed: 0, kneeSpeed: null };
+      const c = damperTableInterpolant(d.points);
+      const knee = Math.min(DAMPER_TABLE_LOW_SPEED_LIMIT, last.velocity);
+      const kneeForce = cubicHermiteAt(c, knee);
+      const lowSpeed = kneeForce / knee;
+      if (last.velocity <= knee) return { lowSpeed, highSpeed: lowSpeed, kneeSpeed: null };
+      return {
+        lowSpeed,
+        highSpeed: (last.force - kneeForce) / (last.velocity - knee),
+        kneeSpeed: knee,
+      };
+    }
   }
+}
+
+/**
+ * The highest shaft speed (m/s) a direction's curve rests on data for: a table's last point;
+ * null for the linear and bilinear forms, which hold at any speed by definition.
+ */
+export function damperDirectionDataLimit(d: DamperDirectionCurve): number | null {
+  if (d.kind !== 'table') return null;
+  return d.points[d.points.length - 1]?.velocity ?? null;
 }
 
 /** Force magnitude (N) of one direction at shaft speed `speed` ≥ 0 (m/s). */
@@ -37,15 +92,28 @@ export function damperDirectionForce(d: DamperDirectionCurve, speed: number): nu
       return speed <= d.kneeSpeed
         ? d.lowSpeed * speed
         : d.lowSpeed * d.kneeSpeed + d.highSpeed * (speed - d.kneeSpeed);
+    case 'table':
+      return cubicHermiteAt(damperTableInterpolant(d.points), speed);
   }
 }
 
 /**
- * Damper force (N) at shaft velocity `v` (m/s), compression positive: positive in bump,
+ * Damping force (N) at shaft velocity `v` (m/s), compression positive: positive in bump,
  * negative in rebound, zero at rest. It resists the motion, so it pushes the body up in bump.
+ * The gas force is not included (see damperShaftForce).
  */
 export function damperForce(curve: DamperCurve, v: number): number {
   return v >= 0 ? damperDirectionForce(curve.bump, v) : -damperDirectionForce(curve.rebound, -v);
+}
+
+/**
+ * Total force on the shaft (N), compression positive, as a bench reads it: the damping force
+ * plus the gas force, which pushes the shaft out at every velocity. On the car the gas force is
+ * part of what holds the corner up at rest, so the event simulation, which works from static
+ * equilibrium, uses the damping force alone.
+ */
+export function damperShaftForce(curve: DamperCurve, v: number): number {
+  return damperForce(curve, v) + (curve.gasForce ?? 0);
 }
 
 function positiveDamping(raw: unknown, field: string): number {
@@ -54,23 +122,45 @@ function positiveDamping(raw: unknown, field: string): number {
   return c;
 }
 
+/** What a damper table from a file must satisfy (DamperDirectionCurve, kind 'table'). */
+const DAMPER_TABLE_RULES = {
+  x: { kind: 'velocity', name: 'speed' },
+  y: { kind: 'force', name: 'force' },
+  positive: true,
+  nonDecreasing: true,
+  minPoints: 1,
+} as const;
+
 /**
  * Reads one direction from a file: `{lowSpeed}` alone is linear; `{lowSpeed, kneeSpeed,
- * highSpeed}` is bilinear. Each value is a quantity with units.
- * @throws InputError naming the field.
+ * highSpeed}` is bilinear; `{points: [[speed, force], …]}` is a table of bench points
+ * (magnitudes, speed rising, force never falling). Each value is a quantity with units.
+ * @throws InputError naming the field, or the offending point of a table.
  */
 export function damperDirectionParse(raw: unknown, field: string): DamperDirectionCurve {
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
     throw new InputError(field, 'expected an object such as {"lowSpeed": "2500 N*s/m"}');
   }
   const o = raw as Record<string, unknown>;
-  const known = new Set(['lowSpeed', 'kneeSpeed', 'highSpeed']);
+  const known = new Set(['lowSpeed', 'kneeSpeed', 'highSpeed', 'points']);
   for (const key of Object.keys(o)) {
     if (!known.has(key))
       throw new InputError(
         inputFieldPath(field, key),
-        'is not a damper field (lowSpeed, kneeSpeed, highSpeed)',
+        'is not a damper field (lowSpeed, kneeSpeed, highSpeed, or points for a table)',
       );
+  }
+  if (o.points !== undefined) {
+    const other = Object.keys(o).find((k) => k !== 'points');
+    if (other) {
+      throw new InputError(
+        inputFieldPath(field, other),
+        'cannot be given with points: a direction is either a table of points or slopes',
+      );
+    }
+    const pointsField = inputFieldPath(field, 'points');
+    const points = pointTableParse(o.points, pointsField, DAMPER_TABLE_RULES);
+    return { kind: 'table', points: points.map(([velocity, force]) => ({ velocity, force })) };
   }
   if (o.lowSpeed === undefined) throw new InputError(inputFieldPath(field, 'lowSpeed'), 'is missing');
   const lowSpeed = positiveDamping(o.lowSpeed, inputFieldPath(field, 'lowSpeed'));
@@ -95,31 +185,46 @@ export function damperDirectionParse(raw: unknown, field: string): DamperDirecti
   return { kind: 'bilinear', lowSpeed, kneeSpeed, highSpeed };
 }
 
-/** Reads a damper `{bump, rebound}` from a file. */
+/** Reads a damper `{bump, rebound, gasForce?}` from a file. */
 export function damperCurveParse(raw: unknown, field: string): DamperCurve {
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
     throw new InputError(field, 'expected an object with "bump" and "rebound"');
   }
   const o = raw as Record<string, unknown>;
   for (const key of Object.keys(o)) {
-    if (key !== 'bump' && key !== 'rebound') {
-      throw new InputError(inputFieldPath(field, key), 'is not a damper direction (bump, rebound)');
+    if (key !== 'bump' && key !== 'rebound' && key !== 'gasForce') {
+      throw new InputError(inputFieldPath(field, key), 'is not a damper field (bump, rebound, gasForce)');
     }
   }
   if (o.bump === undefined) throw new InputError(inputFieldPath(field, 'bump'), 'is missing');
   if (o.rebound === undefined) throw new InputError(inputFieldPath(field, 'rebound'), 'is missing');
-  return {
+  const curve: DamperCurve = {
     bump: damperDirectionParse(o.bump, inputFieldPath(field, 'bump')),
     rebound: damperDirectionParse(o.rebound, inputFieldPath(field, 'rebound')),
   };
+  if (o.gasForce !== undefined) {
+    const gasField = inputFieldPath(field, 'gasForce');
+    const gas = quantityParse(o.gasForce, 'force', gasField);
+    if (!(gas >= 0)) throw new InputError(gasField, `must be zero or more (got ${gas} N)`);
+    curve.gasForce = gas;
+  }
+  return curve;
 }
 
 /** The file form of one direction, quantities as unit strings in `system`. */
 export function damperDirectionToFile(
   d: DamperDirectionCurve,
   system: UnitSystem = 'si',
-): Record<string, string> {
+): Record<string, string> | { points: [string, string][] } {
   switch (d.kind) {
+    case 'table':
+      return {
+        points: pointTableToFile(
+          d.points.map((p) => [p.velocity, p.force] as const),
+          { x: 'velocity', y: 'force' },
+          system,
+        ),
+      };
     case 'linear':
       return { lowSpeed: quantityText(d.coefficient, 'damping', system) };
     case 'bilinear':
@@ -132,18 +237,14 @@ export function damperDirectionToFile(
 }
 
 /** The file form of a damper. */
-export function damperCurveToFile(
-  curve: DamperCurve,
-  system: UnitSystem = 'si',
-): Record<string, Record<string, string>> {
-  return {
+export function damperCurveToFile(curve: DamperCurve, system: UnitSystem = 'si'): Record<string, unknown> {
+  const file: Record<string, unknown> = {
     bump: damperDirectionToFile(curve.bump, system),
     rebound: damperDirectionToFile(curve.rebound, system),
   };
+  if (curve.gasForce !== undefined) file.gasForce = quantityText(curve.gasForce, 'force', system);
+  return file;
 }
-
-/** One bench point of one direction: shaft speed and force as magnitudes (m/s, N). */
-export type DamperPoint = { velocity: number; force: number };
 
 /** A bilinear fit of bench points with its residual. */
 export type DamperDirectionFit = {
@@ -249,16 +350,24 @@ export function damperDirectionFit(points: readonly DamperPoint[], field = 'poin
 
 /**
  * Fits both directions from signed bench points (velocity and force compression-positive,
- * as `damperForce` returns them): positive speeds are bump, negative rebound.
+ * as `damperShaftForce` returns them): positive speeds are bump, negative rebound. When the
+ * points include the damper's gas force, pass it in `options.gasForce` (N) and it is taken
+ * off every point before the fit, so that the curves pass through zero.
  */
-export function damperCurveFit(points: readonly DamperPoint[]): {
+export function damperCurveFit(
+  points: readonly DamperPoint[],
+  options: { gasForce?: number } = {},
+): {
   bump: DamperDirectionFit;
   rebound: DamperDirectionFit;
 } {
-  const bump = points.filter((p) => p.velocity > 0);
+  const gas = options.gasForce ?? 0;
+  const bump = points
+    .filter((p) => p.velocity > 0)
+    .map((p) => ({ velocity: p.velocity, force: p.force - gas }));
   const rebound = points
     .filter((p) => p.velocity < 0)
-    .map((p) => ({ velocity: -p.velocity, force: -p.force }));
+    .map((p) => ({ velocity: -p.velocity, force: gas - p.force }));
   return {
     bump: damperDirectionFit(bump, 'bump points'),
     rebound: damperDirectionFit(rebound, 'rebound points'),

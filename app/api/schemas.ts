@@ -39,6 +39,18 @@ export const analyzeReportSchema = z.strictObject({
       travelRms: finite,
     })
     .optional(),
+  bump: z
+    .strictObject({
+      peakBodyAccel: finite,
+      maxCompression: finite,
+      maxExtension: finite,
+      minTireLoad: finite,
+      maxTireLoad: finite,
+      airborneTime: finite,
+      peakBodyDisplacement: finite,
+      bumpStopContactTime: finite,
+    })
+    .optional(),
   step: z.strictObject({ overshoot: finite, settlingTime: finite }),
   warnings: z.array(warningSchema),
 });

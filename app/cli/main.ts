@@ -1,11 +1,18 @@
 import { InputError } from '../../core/input-error';
 import { analyzeCommand } from './commands/analyze';
+import { benchSimCommand } from './commands/bench-sim';
+import { simulateCommand } from './commands/simulate';
 import { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_OK, UsageError, type CliIo } from './cli-io';
 
 type Command = { summary: string; run: (args: string[], io: CliIo) => Promise<number> };
 
 const COMMANDS: Record<string, Command> = {
   analyze: { summary: 'ride figures of a corner file', run: analyzeCommand },
+  simulate: {
+    summary: 'one road event on the nonlinear quarter car; CSV time history',
+    run: simulateCommand,
+  },
+  'bench-sim': { summary: 'benchmark of the bump simulation (simulations per second)', run: benchSimCommand },
 };
 
 function usage(): string {

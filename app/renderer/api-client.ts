@@ -32,15 +32,30 @@ export function apiTokenTake(): string | null {
 let token: string | null = null;
 
 /** Calls a handler of the API contract on the backend that served this page. */
-export async function apiCall<N extends HandlerName>(name: N, input: HandlerInput<N>): Promise<HandlerOutput<N>> {
+export async function apiCall<N extends HandlerName>(
+  name: N,
+  input: HandlerInput<N>,
+): Promise<HandlerOutput<N>> {
   token ??= apiTokenTake();
-  if (!token) throw new ApiCallError(401, 'This page was opened without its access token: open the address RideLedger printed.');
+  if (!token)
+    throw new ApiCallError(
+      401,
+      'This page was opened without its access token: open the address RideLedger printed.',
+    );
   const res = await fetch(`api/call/${name}`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', 'x-rideledger-token': token },
     body: JSON.stringify(input),
   });
-  const body = (await res.json().catch(() => ({}))) as { value?: unknown; error?: { message?: string; field?: string } };
-  if (!res.ok) throw new ApiCallError(res.status, body.error?.message ?? `request failed (${res.status})`, body.error?.field);
+  const body = (await res.json().catch(() => ({}))) as {
+    value?: unknown;
+    error?: { message?: string; field?: string };
+  };
+  if (!res.ok)
+    throw new ApiCallError(
+      res.status,
+      body.error?.message ?? `request failed (${res.status})`,
+      body.error?.field,
+    );
   return body.value as HandlerOutput<N>;
 }

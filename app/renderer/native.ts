@@ -1,6 +1,8 @@
 import type { MenuCommand, NativeBridge } from '../api/native-bridge';
 
 declare global {
+  // Augmenting the DOM's Window needs an interface: a type alias cannot merge.
+  // eslint-disable-next-line @typescript-eslint/consistent-type-definitions
   interface Window {
     rideledgerNative?: NativeBridge;
   }
@@ -21,10 +23,19 @@ function browserDownload(name: string, blob: Blob): void {
 }
 
 /** Saves text (CSV, a setup file): a native dialog in the desktop, a download in a browser. */
-export async function textFileSave(defaultName: string, content: string, filter: { name: string; extensions: string[] }): Promise<boolean> {
+export async function textFileSave(
+  defaultName: string,
+  content: string,
+  filter: { name: string; extensions: string[] },
+): Promise<boolean> {
   const n = window.rideledgerNative;
-  if (n) return (await n.saveTextFile({ title: `Save ${defaultName}`, defaultName, content, filters: [filter] })).saved;
-  browserDownload(defaultName, new Blob([content], { type: filter.extensions[0] === 'csv' ? 'text/csv' : 'application/json' }));
+  if (n)
+    return (await n.saveTextFile({ title: `Save ${defaultName}`, defaultName, content, filters: [filter] }))
+      .saved;
+  browserDownload(
+    defaultName,
+    new Blob([content], { type: filter.extensions[0] === 'csv' ? 'text/csv' : 'application/json' }),
+  );
   return true;
 }
 
@@ -32,7 +43,8 @@ export async function textFileSave(defaultName: string, content: string, filter:
 export async function imageFileSave(defaultName: string, dataUrl: string): Promise<boolean> {
   const base64 = dataUrl.slice(dataUrl.indexOf(',') + 1);
   const n = window.rideledgerNative;
-  if (n) return (await n.saveImageFile({ title: `Save ${defaultName}`, defaultName, pngBase64: base64 })).saved;
+  if (n)
+    return (await n.saveImageFile({ title: `Save ${defaultName}`, defaultName, pngBase64: base64 })).saved;
   const bytes = Uint8Array.from(atob(base64), (c) => c.charCodeAt(0));
   browserDownload(defaultName, new Blob([bytes], { type: 'image/png' }));
   return true;
@@ -53,10 +65,24 @@ export function menuCommandsListen(listener: (c: MenuCommand) => void): () => vo
     if (!(e.ctrlKey || e.metaKey)) return;
     const key = e.key.toLowerCase();
     const command: MenuCommand | undefined =
-      key === 's' ? 'save' : key === 'k' ? 'compare' : key === 'z' ? (e.shiftKey ? 'redo' : 'undo') : key === 'y' ? 'redo' : undefined;
+      key === 's'
+        ? 'save'
+        : key === 'k'
+          ? 'compare'
+          : key === 'z'
+            ? e.shiftKey
+              ? 'redo'
+              : 'undo'
+            : key === 'y'
+              ? 'redo'
+              : undefined;
     if (!command) return;
     // Undo and redo in a text field belong to the field.
-    if ((command === 'undo' || command === 'redo') && (e.target as HTMLElement | null)?.closest('input, textarea')) return;
+    if (
+      (command === 'undo' || command === 'redo') &&
+      (e.target as HTMLElement | null)?.closest('input, textarea')
+    )
+      return;
     e.preventDefault();
     listener(command);
   };

@@ -24,6 +24,7 @@ describe('rideledger analyze --json', () => {
     const out = JSON.parse(r.stdout) as Record<string, unknown>;
     expect(Object.keys(out).sort()).toEqual(
       [
+        'bump',
         'dampingClass',
         'dampingRatio',
         'frf',
@@ -56,6 +57,18 @@ describe('rideledger analyze --json', () => {
       'travelRms',
     ]);
     expect(Object.keys(out.step as object).sort()).toEqual(['overshoot', 'settlingTime']);
+    expect(Object.keys(out.bump as object).sort()).toEqual(
+      [
+        'peakBodyAccel',
+        'maxCompression',
+        'maxExtension',
+        'minTireLoad',
+        'maxTireLoad',
+        'airborneTime',
+        'peakBodyDisplacement',
+        'bumpStopContactTime',
+      ].sort(),
+    );
     const frf = out.frf as { frequencyHz: number }[];
     expect(frf.map((row) => row.frequencyHz)).toEqual([0.5, 1, 2, 5, 10, 15, 25]);
     expect(Object.keys(frf[0] as object).sort()).toEqual(['bodyAccel', 'frequencyHz', 'tireLoad', 'travel']);

@@ -37,6 +37,19 @@ export function analyzeReportOf(a: CornerAnalysis): AnalyzeReport {
       travelRms: r.travelRms,
     };
   }
+  if (a.bump) {
+    const m = a.bump.metrics;
+    report.bump = {
+      peakBodyAccel: m.peakBodyAccel,
+      maxCompression: m.maxCompression,
+      maxExtension: m.maxExtension,
+      minTireLoad: m.minTireLoad,
+      maxTireLoad: m.maxTireLoad,
+      airborneTime: m.airborneTime,
+      peakBodyDisplacement: m.peakBodyDisplacement,
+      bumpStopContactTime: m.bumpStopContactTime,
+    };
+  }
   return report;
 }
 
@@ -49,7 +62,7 @@ export function analyzeCornerFile(
   return { analysis, report: analyzeReportOf(analysis) };
 }
 
-/** Handler `analyzeCorner`: the linear analysis of one corner file. */
+/** Handler `analyzeCorner`: the analysis of one corner file. */
 export function analyzeCorner(input: HandlerInput<'analyzeCorner'>): HandlerOutput<'analyzeCorner'> {
   const options = input.frequencies ? { frequencies: input.frequencies } : {};
   return analyzeCornerFile(input.file, options).report;

@@ -12,6 +12,7 @@ import {
   type UnitSystem,
 } from '../../../core/units';
 import { analyzeCornerFile } from '../../api/handlers/analyze';
+import { eventMetricsLines } from '../event-report';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
 import { readJsonFile } from '../read-json-file';
 import { tableFormat, textWrap } from '../table';
@@ -19,8 +20,10 @@ import { tableFormat, textWrap } from '../table';
 export const ANALYZE_USAGE = `rideledger analyze FILE [--json] [--frequencies 0.5,1,2] [--units si|us]
 
   Reads a corner file and prints its ride figures: rates, ride and wheel-hop frequency,
-  damping ratios and class, modes, the 10 mm step, frequency response, and the random-road
-  figures when the file has a road. --json prints one JSON object in SI units.`;
+  damping ratios and class, modes, the 10 mm step, frequency response, the random-road
+  figures when the file has a road, and the bump on the nonlinear quarter car (damper
+  curves, bump stop, tyre lift-off) when it has a bump. --json prints one JSON object in
+  SI units.`;
 
 /** Reads `--frequencies 0.5,1,2` (Hz). */
 export function frequencyListParse(text: string): number[] {
@@ -46,7 +49,6 @@ export function unitSystemParse(text: string | undefined): UnitSystem {
   throw new UsageError(`--units: got "${text}"; expected si or us`);
 }
 
-/** The readable report: tables with units, the damping class in words, warnings, the caution. */
 /** The readable report: tables with units, the damping class in words, warnings, the caution. */
 export function analyzeHumanReport(a: CornerAnalysis, system: UnitSystem): string {
   const f = a.figures;
@@ -139,6 +141,7 @@ export function analyzeHumanReport(a: CornerAnalysis, system: UnitSystem): strin
       ]),
     );
   }
+  if (a.bump) out.push('', ...eventMetricsLines(a.bump.event, a.bump.metrics, system));
   const perRoad = quantityUnitLabel('length', system);
   const perMetre = quantityToDisplay(1, 'length', system);
   out.push('', `Frequency response, per ${perRoad} of road displacement`);

@@ -63,9 +63,15 @@ export async function svgToPng(svg: SVGSVGElement): Promise<string> {
 export function plotCsv(xLabel: string, yLabel: string, series: readonly PlotSeries[]): string {
   const header = series.flatMap((s) => [`${s.name}: ${xLabel}`, `${s.name}: ${yLabel}`]);
   const n = Math.max(0, ...series.map((s) => s.x.length));
-  const rows: (string | number)[][] = [];
-  for (let i = 0; i < n; i++) rows.push(series.flatMap((s) => (i < s.x.length ? [s.x[i] as number, s.y[i] as number] : ['', ''])));
-  return csvFormat([header, ...rows]);
+  const rows: (string | number)[][] = [header];
+  for (let i = 0; i < n; i++) {
+    rows.push(
+      series.flatMap((s): (string | number)[] =>
+        i < s.x.length ? [s.x[i] as number, s.y[i] as number] : ['', ''],
+      ),
+    );
+  }
+  return csvFormat(rows);
 }
 
 /**
@@ -88,19 +94,25 @@ export function LinePlot(props: {
     for (let i = 0; i < s.x.length; i++) {
       const x = s.x[i] as number;
       const y = s.y[i] as number;
-      if (Number.isFinite(x) && Number.isFinite(y) && (!props.xLog || x > 0) && (!props.yLog || y > 0)) points.push({ x, y });
+      if (Number.isFinite(x) && Number.isFinite(y) && (!props.xLog || x > 0) && (!props.yLog || y > 0))
+        points.push({ x, y });
     }
     return { name: s.name, points };
   });
   const xs = data.flatMap((d) => d.points.map((p) => p.x));
   const ys = data.flatMap((d) => d.points.map((p) => p.y));
   const xDomain: [number, number] = xs.length ? [Math.min(...xs), Math.max(...xs)] : [0, 1];
-  const yDomain: [number, number] | undefined = props.yLog && ys.length ? [Math.min(...ys), Math.max(...ys)] : undefined;
+  const yDomain: [number, number] | undefined =
+    props.yLog && ys.length ? [Math.min(...ys), Math.max(...ys)] : undefined;
   const savePng = async () => {
     const svg = box.current?.querySelector('svg.recharts-surface');
     if (svg) await imageFileSave(`${props.id}.png`, await svgToPng(svg as SVGSVGElement));
   };
-  const saveCsv = () => textFileSave(`${props.id}.csv`, plotCsv(props.xLabel, props.yLabel, props.series), { name: 'CSV', extensions: ['csv'] });
+  const saveCsv = () =>
+    textFileSave(`${props.id}.csv`, plotCsv(props.xLabel, props.yLabel, props.series), {
+      name: 'CSV',
+      extensions: ['csv'],
+    });
   return (
     <figure className="plot" data-plot={props.id}>
       <figcaption>
@@ -137,10 +149,20 @@ export function LinePlot(props: {
               ticks={props.yLog && yDomain ? niceLogTicks(yDomain[0], yDomain[1]) : undefined}
               tickFormatter={tickText}
               width={72}
-              label={{ value: props.yLabel, angle: -90, position: 'insideLeft', offset: 0, fill: '#111', style: { textAnchor: 'middle' } }}
+              label={{
+                value: props.yLabel,
+                angle: -90,
+                position: 'insideLeft',
+                offset: 0,
+                fill: '#111',
+                style: { textAnchor: 'middle' },
+              }}
               stroke="#222"
             />
-            <Tooltip formatter={(v) => tickText(Number(v))} labelFormatter={(v) => `${props.xLabel}: ${tickText(Number(v))}`} />
+            <Tooltip
+              formatter={(v) => tickText(Number(v))}
+              labelFormatter={(v) => `${props.xLabel}: ${tickText(Number(v))}`}
+            />
             <Legend verticalAlign="top" height={28} />
             {data.map((d, i) => {
               const style = SERIES_STYLES[i % SERIES_STYLES.length] as (typeof SERIES_STYLES)[number];
