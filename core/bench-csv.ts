@@ -124,6 +124,7 @@ export function csvNumbersRead(
   let pos = header.dataStart;
   let lineNo = header.line;
   const allowEmpty = options.allowEmpty ?? new Set<number>();
+  const where = (line: number, col: number) => `line ${line}, column "${header.cells[col]}"`;
   while (pos < text.length) {
     const end = lineEnd(text, pos);
     const content = lineAt(text, pos, end);
@@ -154,19 +155,18 @@ export function csvNumbersRead(
     for (let w = 0; w < wanted.length; w++) {
       const col = wanted[w] as number;
       let cell = (cells[col] as string).trim();
-      const where = () => `line ${lineNo}, column "${header.cells[col]}"`;
       if (cell === '') {
         if (allowEmpty.has(col)) {
           (data[w] as Float64Array)[rows] = NaN;
           continue;
         }
-        throw new InputError(where(), 'is empty; expected a number');
+        throw new InputError(where(lineNo, col), 'is empty; expected a number');
       }
       if (cell.includes(',') || cell.includes('.')) {
         const sep = cell.includes(',') ? ',' : '.';
         if (cell.includes(',') && cell.includes('.'))
           throw new InputError(
-            where(),
+            where(lineNo, col),
             `"${cell}" holds both "." and ","; write numbers without thousands separators`,
           );
         if (decimal === undefined) {
@@ -174,17 +174,19 @@ export function csvNumbersRead(
           decimalLine = lineNo;
         } else if (sep !== decimal)
           throw new InputError(
-            where(),
+            where(lineNo, col),
             `"${cell}" uses "${sep}" as decimal separator, but ${decimalLine ? `line ${decimalLine}` : 'a comma-separated file'} uses "${decimal}"; use one decimal separator throughout`,
           );
         if (sep === ',') cell = cell.replace(',', '.');
       }
       if (!NUMBER.test(cell)) {
-        if (NON_FINITE.test(cell)) throw new InputError(where(), `"${cell}" is not a finite number`);
-        throw new InputError(where(), `"${cells[col]?.trim()}" is not a number`);
+        if (NON_FINITE.test(cell))
+          throw new InputError(where(lineNo, col), `"${cell}" is not a finite number`);
+        throw new InputError(where(lineNo, col), `"${cells[col]?.trim()}" is not a number`);
       }
       const v = Number(cell);
-      if (!Number.isFinite(v)) throw new InputError(where(), `"${cell}" is too large to be a finite number`);
+      if (!Number.isFinite(v))
+        throw new InputError(where(lineNo, col), `"${cell}" is too large to be a finite number`);
       (data[w] as Float64Array)[rows] = v;
     }
     lines[rows] = lineNo;

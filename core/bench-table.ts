@@ -338,8 +338,15 @@ export function benchTableRead(text: string, options: BenchTableOptions = {}): B
     throw new InputError('--bins', `got ${options.bins}; expected a whole number from 3 to 1000`);
   for (const [role, unit] of Object.entries(options.units ?? {}) as [BenchColumnRole, string | undefined][])
     if (unit !== undefined) unitFactor(unit, role, `--${role}-unit`);
+  // Naming a column says which kind of file this is; otherwise the header does.
+  const named = options.columns ?? {};
   const kind =
     options.kind ??
+    (named.velocity !== undefined
+      ? 'points'
+      : named.time !== undefined || named.displacement !== undefined
+        ? 'trace'
+        : undefined) ??
     (columnsOfRole(cells, 'velocity', options.columns?.velocity).length > 0
       ? 'points'
       : columnsOfRole(cells, 'time', options.columns?.time).length > 0 &&

@@ -12,9 +12,10 @@ export const TRACE_BIN_MIN_SAMPLES = 3;
 
 /**
  * Shaft velocity from a sampled displacement by a smoothed central difference: at each
- * sample the slope of the least-squares line through the 2h+1 samples centred on it
- * (the Savitzky–Golay first derivative for uniform sampling; it also holds for uneven
- * sampling), the window shortened at the ends. Units: displacement/time.
+ * sample, the derivative at that sample of the least-squares quadratic through the 2h+1
+ * samples around it (Savitzky–Golay smoothing differentiator; on uniform samples it is the
+ * centred least-squares slope). The quadratic makes it hold for uneven sampling and at the
+ * ends, where the window keeps its width and shifts inwards. Units: displacement/time.
  * @throws InputError naming the row when time does not increase.
  */
 export function traceVelocity(
@@ -24,8 +25,9 @@ export function traceVelocity(
   lines?: Uint32Array,
 ): Float64Array {
   const n = time.length;
-  if (n < 2 * halfWindow + 1 || n < 3)
-    throw new InputError('file', `a trace needs at least ${Math.max(3, 2 * halfWindow + 1)} rows (got ${n})`);
+  const width = 2 * halfWindow + 1;
+  if (n < Math.max(3, width))
+    throw new InputError('file', `a trace needs at least ${Math.max(3, width)} rows (got ${n})`);
   for (let i = 1; i < n; i++) {
     if (!((time[i] as number) > (time[i - 1] as number))) {
       const where = lines ? `line ${lines[i]}` : `row ${i + 1}`;
@@ -37,26 +39,45 @@ export function traceVelocity(
   }
   const v = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const lo = Math.max(0, i - halfWindow);
-    const hi = Math.min(n - 1, i + halfWindow);
-    // Centre on the window's own means: slopes of times far from zero lose no digits.
+    const lo = Math.max(0, Math.min(i - halfWindow, n - width));
+    const hi = lo + width - 1;
+    // Centre on the window's own means: times far from zero lose no digits.
     let tm = 0;
     let xm = 0;
     for (let k = lo; k <= hi; k++) {
       tm += time[k] as number;
       xm += displacement[k] as number;
     }
-    const m = hi - lo + 1;
-    tm /= m;
-    xm /= m;
-    let stt = 0;
-    let stx = 0;
+    tm /= width;
+    xm /= width;
+    let s2 = 0;
+    let s3 = 0;
+    let s4 = 0;
+    let y1 = 0;
+    let y2 = 0;
     for (let k = lo; k <= hi; k++) {
-      const dt = (time[k] as number) - tm;
-      stt += dt * dt;
-      stx += dt * ((displacement[k] as number) - xm);
+      const u = (time[k] as number) - tm;
+      const y = (displacement[k] as number) - xm;
+      const u2 = u * u;
+      s2 += u2;
+      s3 += u2 * u;
+      s4 += u2 * u2;
+      y1 += u * y;
+      y2 += u2 * y;
     }
-    v[i] = stx / stt;
+    // Normal equations of y = a + b·u + c·u² with Σu = Σy = 0:
+    //   [m 0 s2; 0 s2 s3; s2 s3 s4]·[a b c] = [0 y1 y2]
+    const m = width;
+    const det = m * (s2 * s4 - s3 * s3) - s2 * s2 * s2;
+    const ui = (time[i] as number) - tm;
+    if (Math.abs(det) <= 1e-12 * m * s2 * s4) {
+      v[i] = y1 / s2;
+      continue;
+    }
+    // Cramer's rule for b and c.
+    const b = (m * (y1 * s4 - s3 * y2) - s2 * s2 * y1) / det;
+    const c = (m * (s2 * y2 - s3 * y1)) / det;
+    v[i] = b + 2 * c * ui;
   }
   return v;
 }
