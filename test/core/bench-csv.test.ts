@@ -120,8 +120,8 @@ describe('csvNumbersRead', () => {
           const text = `v,f\n${rows.map(([a, b]) => `${a},${b}`).join('\n')}\n`;
           const r = read(text);
           rows.forEach(([a, b], i) => {
-            expect(r.columns.get(0)?.[i]).toBe(a);
-            expect(r.columns.get(1)?.[i]).toBe(b);
+            expect(r.columns.get(0)?.[i]).toBe(Number(String(a)));
+            expect(r.columns.get(1)?.[i]).toBe(Number(String(b)));
           });
         },
       ),
