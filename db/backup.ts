@@ -49,8 +49,10 @@ export async function storeBackup(
   const partial = `${target}.partial-${process.pid}`;
   try {
     await store.db.backup(partial);
-    const copy = new Database(partial, { readonly: true });
+    const copy = new Database(partial);
     try {
+      // A backup is one file to carry away: no write-ahead log beside it.
+      copy.pragma('journal_mode = DELETE');
       const integrity = copy.pragma('integrity_check', { simple: true });
       if (integrity !== 'ok')
         throw new Error(`the backup copy failed its integrity check: ${String(integrity)}`);

@@ -6,7 +6,7 @@ import { setupFileFixture } from './setup-fixture';
 
 type Raw = ReturnType<typeof setupFileFixture>;
 const sheetOf = (raw: Raw): SetupSheet => setupFileParse(raw).sheet;
-const cornerOf = (raw: Raw, p: string) => raw.corners[p]?.corner as Record<string, unknown>;
+const cornerOf = (raw: Raw, p: 'FL' | 'FR' | 'RL' | 'RR') => raw.corners[p].corner;
 
 /** The worked example of the reference notes, §3, as the front-left corner (unsprung mass ours). */
 function workedExampleFixture(frontSpring: number): Raw {
@@ -129,7 +129,7 @@ describe('setupDiffSummary', () => {
   it('groups the same change on several corners and puts the car before the paperwork', () => {
     const a = setupFileFixture();
     const b = setupFileFixture();
-    for (const p of ['RL', 'RR']) cornerOf(b, p).springRate = '65 N/mm';
+    for (const p of ['RL', 'RR'] as const) cornerOf(b, p).springRate = '65 N/mm';
     b.corners.FL.clicks = { bump: 6, rebound: 4 };
     b.event = 'Round 2';
     b.name = 'Stiffer rear';
@@ -143,9 +143,9 @@ describe('setupDiffSummary', () => {
   it('names all four corners as "all corners" and cuts a long line', () => {
     const a = setupFileFixture();
     const b = setupFileFixture();
-    for (const p of ['FL', 'FR', 'RL', 'RR']) b.corners[p].camber = '-3 deg';
+    for (const p of ['FL', 'FR', 'RL', 'RR'] as const) b.corners[p].camber = '-3 deg';
     expect(setupDiffSummary(setupDiff(sheetOf(a), sheetOf(b)))).toBe('camber all corners -2.5→-3 deg');
-    for (const p of ['FL', 'FR', 'RL', 'RR']) {
+    for (const p of ['FL', 'FR', 'RL', 'RR'] as const) {
       b.corners[p].springLabel = `label ${p}`;
       b.corners[p].rideHeight = `${80 + p.length} mm`;
       cornerOf(b, p).tireRate = `${250 + p.charCodeAt(1)} N/mm`;

@@ -31,7 +31,7 @@ describe('setupFileParse', () => {
 
   it('reads toe given as an angle', () => {
     const raw = setupFileFixture();
-    (raw.corners.FL as Record<string, unknown>).toe = '0.1 deg';
+    raw.corners.FL.toe = '0.1 deg';
     expect(setupFileParse(raw).sheet.corners.FL.toe).toEqual({ kind: 'angle', value: (0.1 * Math.PI) / 180 });
   });
 
@@ -53,7 +53,7 @@ describe('setupFileParse', () => {
         fc.double({ min: 0.01, max: 0.5, noNaN: true }),
         (k, h) => {
           const raw = setupFileFixture();
-          (raw.corners.FL.corner as Record<string, unknown>).springRate = k;
+          raw.corners.FL.corner.springRate = k;
           raw.corners.FL.rideHeight = h;
           const sheet = setupFileParse(raw).sheet;
           const again = setupFileParse(setupFileWrite({ sheet }, 'us')).sheet;
@@ -69,8 +69,18 @@ describe('setupFileParse', () => {
     ['a missing format tag', (r) => delete r.format, 'format', /is missing/],
     ['another format', (r) => (r.format = 'other'), 'format', /expected "rideledger-setup"/],
     ['a newer version', (r) => (r.version = 2), 'version', /update RideLedger/],
-    ['a missing corner', (r) => delete r.corners.RL, 'corners.RL', /all four corners/],
-    ['an unknown corner', (r) => (r.corners.XX = {}), 'corners.XX', /not a known field/],
+    [
+      'a missing corner',
+      (r) => delete (r.corners as Record<string, unknown>).RL,
+      'corners.RL',
+      /all four corners/,
+    ],
+    [
+      'an unknown corner',
+      (r) => ((r.corners as Record<string, unknown>).XX = {}),
+      'corners.XX',
+      /not a known field/,
+    ],
     ['an unknown field', (r) => (r.colour = 'red'), 'colour', /not a known field/],
     ['no name', (r) => delete r.name, 'name', /is missing/],
     ['an empty name', (r) => (r.name = '   '), 'name', /is empty/],
@@ -124,13 +134,13 @@ describe('setupFileParse', () => {
     ],
     [
       'a corner input error',
-      (r) => ((r.corners.RR.corner as Record<string, unknown>).springRate = '-5 N/mm'),
+      (r) => (r.corners.RR.corner.springRate = '-5 N/mm'),
       'corners.RR.corner.springRate',
       /greater than zero/,
     ],
     [
       'a spring rate in a wrong unit',
-      (r) => ((r.corners.RR.corner as Record<string, unknown>).springRate = '70 kg'),
+      (r) => (r.corners.RR.corner.springRate = '70 kg'),
       'corners.RR.corner.springRate',
       /expected a rate/,
     ],

@@ -1,7 +1,14 @@
+/** One corner of the fixture: the corner file's "corner" object and the sheet fields. */
+export type FixtureCorner = { [key: string]: unknown; corner: Record<string, unknown> };
+
+/** The fixture's shape, loose enough for tests to break it field by field. */
+export type SetupFixture = {
+  [key: string]: unknown;
+  corners: { FL: FixtureCorner; FR: FixtureCorner; RL: FixtureCorner; RR: FixtureCorner };
+};
+
 /** An invented setup file for the tests (the demo shop's coupe, simplified). */
-export function setupFileFixture(): Record<string, unknown> & {
-  corners: Record<string, Record<string, unknown>>;
-} {
+export function setupFileFixture(): SetupFixture {
   const corner = (front: boolean) => ({
     corner: {
       cornerMass: front ? '295 kg' : '265 kg',
