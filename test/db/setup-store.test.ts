@@ -26,7 +26,7 @@ describe('setupSave', () => {
   it('reads back exactly the sheet it saved, numbers bit for bit', () => {
     const store = freshStore();
     const sheet = setupFileParse(setupFileFixture()).sheet;
-    (sheet.corners.RR.analysis as { springRate: number }).springRate = 78807.07133620377;
+    (sheet.corners.RR.analysis as { springRate: number }).springRate = (450 * 4.4482216152605) / 0.0254; // 450 lbf/in, not a short decimal
     const saved = setupSave(store, vehicleAdded(store), sheet);
     expect(setupSheetRead(store.db, saved.revision)).toEqual(sheet);
   });
