@@ -60,6 +60,17 @@ const TEXT_PATHS = new Set([
   'springLabel',
 ]);
 
+/**
+ * Two numbers this close (relative) are one value: a file written with units and read back
+ * keeps 12 significant digits (quantityText), so a sheet shown in lbf/in and saved again
+ * differs from the stored one by about 1e-12 — that is not a change the shop made.
+ */
+export const SETUP_DIFF_RELATIVE_TOLERANCE = 1e-9;
+
+function sameNumber(a: number, b: number): boolean {
+  return Math.abs(a - b) <= SETUP_DIFF_RELATIVE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b));
+}
+
 const QUANTITY_TEXT = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?) (.+)$/;
 
 /** Every leaf of a file-form object by its dotted path, in file order. */
@@ -119,6 +130,13 @@ function fieldChanges(
     if (position) change.position = position;
     const sa = va === undefined ? undefined : shownOf(path, va);
     const sb = vb === undefined ? undefined : shownOf(path, vb);
+    if (
+      sa?.number !== undefined &&
+      sb?.number !== undefined &&
+      sa.unit === sb.unit &&
+      sameNumber(sa.number, sb.number)
+    )
+      continue;
     if (sa && sb && sa.unit !== sb.unit) {
       // The form changed (toe in degrees became toe in mm): each value keeps its own unit.
       change.before = sa.unit ? `${sa.text} ${sa.unit}` : sa.text;
@@ -184,7 +202,7 @@ export function setupDiff(a: SetupSheet, b: SetupSheet, system: UnitSystem = 'si
     const fa = figuresOf(a, p);
     const fb = figuresOf(b, p);
     for (const figure of SETUP_FIGURES) {
-      if (Math.abs(fb[figure] - fa[figure]) > 1e-12 * Math.abs(fa[figure]))
+      if (!sameNumber(fa[figure], fb[figure]))
         figures.push({ position: p, figure, before: fa[figure], after: fb[figure] });
     }
   }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { setupDiff, setupDiffSummary } from '../../core/setup-diff';
-import { setupFileParse } from '../../core/setup-file';
+import { setupFileParse, setupFileWrite } from '../../core/setup-file';
 import type { SetupSheet } from '../../core/setup-sheet';
 import { setupFileFixture } from './setup-fixture';
 
@@ -122,6 +122,13 @@ describe('setupDiff', () => {
     cornerOf(b, 'FL').springRate = 70_000.5;
     const [change] = setupDiff(sheetOf(a), sheetOf(b)).fields;
     expect(change?.before).not.toBe(change?.after);
+  });
+
+  it('does not count the round-off of a sheet written in US units and read back as a change', () => {
+    const sheet = sheetOf(setupFileFixture());
+    const again = setupFileParse(setupFileWrite({ sheet }, 'us')).sheet;
+    expect(again.corners.FL.analysis.tireRate).not.toBe(sheet.corners.FL.analysis.tireRate); // 12 digits kept
+    expect(setupDiff(sheet, again)).toEqual({ fields: [], figures: [] });
   });
 });
 
