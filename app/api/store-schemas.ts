@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { BUNDLE_FORMAT, BUNDLE_VERSION } from '../../db/bundle';
-import { warningSchema } from './schemas';
+import { analyzeReportSchema, warningSchema } from './schemas';
 
 /** Zod schemas of the shop's record: vehicles, setup revisions, damper bench runs, bundles. */
 
@@ -52,21 +52,14 @@ export const revisionRefSchema = z.strictObject({
   revision: z.number().int().positive().optional(),
 });
 
-export const cornerFiguresSchema = z.strictObject({
-  wheelRate: finite,
-  rideRate: finite,
-  rideFrequencyHz: finite,
-  wheelHopFrequencyHz: finite,
-  dampingRatio: z.strictObject({
-    bump: finite,
-    rebound: finite,
-    bumpHighSpeed: finite,
-    reboundHighSpeed: finite,
-  }),
-  dampingClass: z.strictObject({
-    bump: z.enum(['underdamped', 'critically damped', 'overdamped']),
-    rebound: z.enum(['underdamped', 'critically damped', 'overdamped']),
-  }),
+/** A corner's headline figures: the same keys, types and classes as the analyze report's. */
+export const cornerFiguresSchema = analyzeReportSchema.pick({
+  wheelRate: true,
+  rideRate: true,
+  rideFrequencyHz: true,
+  wheelHopFrequencyHz: true,
+  dampingRatio: true,
+  dampingClass: true,
 });
 
 export const cornerWarningSchema = warningSchema.extend({ position: cornerPositionSchema });
@@ -137,6 +130,14 @@ export const benchRunSummarySchema = z.strictObject({
   importedAt: z.string(),
 });
 
+/** A text per bench-file column role. */
+const columnTextsSchema = z.strictObject({
+  velocity: z.string().optional(),
+  force: z.string().optional(),
+  time: z.string().optional(),
+  displacement: z.string().optional(),
+});
+
 /** Quantities arrive as SI numbers or strings with units, read by core (which names the field). */
 const quantityInput = z.union([z.number(), z.string()]).optional();
 
@@ -148,22 +149,10 @@ export const benchImportInputSchema = z.strictObject({
     z.strictObject({ text: z.string(), name: z.string() }),
   ]),
   kind: z.enum(['points', 'trace']).optional(),
-  columns: z
-    .strictObject({
-      velocity: z.string().optional(),
-      force: z.string().optional(),
-      time: z.string().optional(),
-      displacement: z.string().optional(),
-    })
-    .optional(),
-  units: z
-    .strictObject({
-      velocity: z.string().optional(),
-      force: z.string().optional(),
-      time: z.string().optional(),
-      displacement: z.string().optional(),
-    })
-    .optional(),
+  /** Header names of the columns, by what they hold. */
+  columns: columnTextsSchema.optional(),
+  /** Units of the columns ("in/s", "lbf"), by what they hold. */
+  units: columnTextsSchema.optional(),
   compression: z.enum(['positive', 'negative']).optional(),
   /** Clicker positions: the text form ("bump 3 rebound 6") or the object form. */
   clicks: z.union([z.string(), clickSettingsSchema]).optional(),

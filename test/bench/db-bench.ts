@@ -12,6 +12,7 @@ import { apiCall } from '../../app/api/call';
 import type { ApiContext } from '../../app/api/context';
 import { storeClose, storeOpen } from '../../db/store';
 import { setupFileFixture } from '../core/setup-fixture';
+import { benchPointTable } from '../db/bench-fixture';
 
 const dir = mkdtempSync(join(tmpdir(), 'rideledger-bench-'));
 
@@ -31,27 +32,13 @@ async function timed(times: number, fn: () => Promise<unknown>): Promise<number>
   return median(ms);
 }
 
-function pointFile(path: string, n: number): void {
-  const lines = ['velocity,force'];
-  for (let i = 0; i < n; i++) {
-    const v = -0.5 + (i + 0.5) / n;
-    const s = Math.abs(v);
-    const f =
-      v > 0
-        ? 3000 * Math.min(s, 0.06) + 1000 * Math.max(s - 0.06, 0)
-        : -(6000 * Math.min(s, 0.06) + 2000 * Math.max(s - 0.06, 0));
-    lines.push(`${v.toFixed(7)},${(f + 5 * Math.sin(i)).toFixed(3)}`);
-  }
-  writeFileSync(path, `${lines.join('\n')}\n`);
-}
-
 const results: { what: string; ms: number; budget: number }[] = [];
 try {
   const store = storeOpen(join(dir, 'bench.sqlite'));
   const ctx: ApiContext = { store };
 
   const csv = join(dir, 'million.csv');
-  pointFile(csv, 1_000_000);
+  writeFileSync(csv, benchPointTable(1_000_000, { noise: 5 }));
   const importMs = await timed(3, () =>
     apiCall('benchImport', { damper: 'BENCH', source: { path: csv }, again: true }, ctx),
   );

@@ -2,20 +2,13 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { csvHeaderRead, csvNumbersRead } from '../../core/bench-csv';
 import { InputError } from '../../core/input-error';
+import { inputErrorOf } from '../input-error-fixture';
 
 function read(text: string, wanted = [0, 1]) {
   return csvNumbersRead(text, csvHeaderRead(text), wanted);
 }
 
-function problem(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof InputError) return e.message;
-    throw e;
-  }
-  throw new Error('expected an InputError');
-}
+const problem = (fn: () => unknown): string => inputErrorOf(fn).message;
 
 describe('csvHeaderRead', () => {
   it('finds the delimiter from the header: tab, then semicolon, then comma', () => {

@@ -1,16 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { benchHeaderCellParse, benchTableRead } from '../../core/bench-table';
-import { InputError } from '../../core/input-error';
+import { inputErrorOf } from '../input-error-fixture';
 
-function problem(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof InputError) return e.message;
-    throw e;
-  }
-  throw new Error('expected an InputError');
-}
+const problem = (fn: () => unknown): string => inputErrorOf(fn).message;
 
 // NIST SP 811 (2008) Appendix B [pub]: 1 in = 0.0254 m and 1 lbf = 4.4482216152605 N, exactly.
 const INCH = 0.0254;

@@ -1,18 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../core/input-error';
+import { inputErrorOf } from '../input-error-fixture';
 import { setupFileParse, setupFileWrite } from '../../core/setup-file';
 import { setupFileFixture } from './setup-fixture';
-
-function errorOf(fn: () => unknown): InputError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof InputError) return e;
-    throw e;
-  }
-  throw new Error('expected an InputError');
-}
 
 describe('setupFileParse', () => {
   it('reads all four corners and the vehicle-level fields in SI', () => {
@@ -154,15 +144,15 @@ describe('setupFileParse', () => {
     it(`names the field for ${what}`, () => {
       const raw = setupFileFixture();
       change(raw);
-      const e = errorOf(() => setupFileParse(raw));
+      const e = inputErrorOf(() => setupFileParse(raw));
       expect(e.field).toBe(field);
       expect(e.problem).toMatch(message);
     });
   }
 
   it('rejects a file that is not an object', () => {
-    expect(errorOf(() => setupFileParse([])).problem).toMatch(/expected an object/);
-    expect(errorOf(() => setupFileParse(null)).problem).toMatch(/expected an object/);
+    expect(inputErrorOf(() => setupFileParse([])).problem).toMatch(/expected an object/);
+    expect(inputErrorOf(() => setupFileParse(null)).problem).toMatch(/expected an object/);
   });
 
   it('keeps unicode names and normalises them to NFC', () => {

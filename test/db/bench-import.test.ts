@@ -4,22 +4,8 @@ import { benchImport, type BenchImportRequest } from '../../db/bench-import';
 import { benchPointsDecode } from '../../db/bench-points';
 import { benchRunById, benchRunListOfDamper } from '../../db/queries/bench-run';
 import { damperUnitList } from '../../db/queries/damper-unit';
+import { benchPointTable } from './bench-fixture';
 import { freshStore, storeDigest } from './store-fixture';
-
-/** Points of an invented bilinear damper, compression positive. */
-function pointTable(n: number, extra = ''): string {
-  const lines = ['velocity,force'];
-  for (let i = 0; i < n; i++) {
-    const v = -0.5 + (i + 0.5) / n;
-    const s = Math.abs(v);
-    const f =
-      v > 0
-        ? 3000 * Math.min(s, 0.06) + 1000 * Math.max(s - 0.06, 0)
-        : -(6000 * Math.min(s, 0.06) + 2000 * Math.max(s - 0.06, 0));
-    lines.push(`${v.toFixed(7)},${f.toFixed(3)}`);
-  }
-  return `${lines.join('\n')}\n${extra}`;
-}
 
 function importing(
   store: ReturnType<typeof freshStore>,
@@ -32,7 +18,7 @@ function importing(
 describe('benchImport', () => {
   it('stores the points exactly and the fitted curve of a one-run file, creating the unit', () => {
     const store = freshStore();
-    const text = pointTable(41);
+    const text = benchPointTable(41);
     const r = importing(store, text, {
       date: '2025-02-15',
       stroke: 0.05,
@@ -76,7 +62,7 @@ describe('benchImport', () => {
 
   it('refuses the same file twice for a unit unless asked', () => {
     const store = freshStore();
-    const text = pointTable(20);
+    const text = benchPointTable(20);
     importing(store, text);
     const before = storeDigest(store);
     expect(() => importing(store, text)).toThrow(/already imported for damper "D-1" as run #1/);
@@ -86,9 +72,9 @@ describe('benchImport', () => {
 
   it('refuses a known label with another serial, storing nothing', () => {
     const store = freshStore();
-    importing(store, pointTable(20), { unit: { serial: 'S-1' } });
+    importing(store, benchPointTable(20), { unit: { serial: 'S-1' } });
     const before = storeDigest(store);
-    expect(() => importing(store, pointTable(21), { unit: { serial: 'S-2' } })).toThrow(
+    expect(() => importing(store, benchPointTable(21), { unit: { serial: 'S-2' } })).toThrow(
       /already in the library with serial "S-1", not "S-2"/,
     );
     expect(storeDigest(store)).toBe(before);
@@ -96,8 +82,8 @@ describe('benchImport', () => {
 
   it('keeps unicode labels, matching them as one unit ignoring case', () => {
     const store = freshStore();
-    importing(store, pointTable(20), { damper: 'Dämpfer VL Ω' });
-    importing(store, pointTable(22), { damper: 'DÄMPFER vl ω' });
+    importing(store, benchPointTable(20), { damper: 'Dämpfer VL Ω' });
+    importing(store, benchPointTable(22), { damper: 'DÄMPFER vl ω' });
     expect(damperUnitList(store.db).map((d) => [d.label, d.run_count])).toEqual([['Dämpfer VL Ω', 2]]);
   });
 
@@ -107,14 +93,19 @@ describe('benchImport', () => {
     ['a header only', 'velocity,force\n', {}, /^run\.csv: has a header but no rows/],
     [
       'a non-numeric cell',
-      pointTable(10, '0.45,abc\n'),
+      benchPointTable(10, { extra: '0.45,abc\n' }),
       {},
       /^run\.csv, line 12, column "force": "abc" is not a number/,
     ],
-    ['NaN', pointTable(10, 'NaN,1\n'), {}, /line 12, column "velocity": "NaN" is not a finite number/],
+    [
+      'NaN',
+      benchPointTable(10, { extra: 'NaN,1\n' }),
+      {},
+      /line 12, column "velocity": "NaN" is not a finite number/,
+    ],
     [
       'Infinity',
-      pointTable(10, '0.45,Infinity\n'),
+      benchPointTable(10, { extra: '0.45,Infinity\n' }),
       {},
       /line 12, column "force": "Infinity" is not a finite number/,
     ],
@@ -126,7 +117,7 @@ describe('benchImport', () => {
     ],
     [
       'a wrong unit',
-      pointTable(10),
+      benchPointTable(10),
       { table: { units: { velocity: 'kg' } } },
       /^--velocity-unit: "kg" is not a unit of velocity/,
     ],
@@ -148,7 +139,7 @@ describe('benchImport', () => {
   for (const [what, text, more, message] of corpus) {
     it(`refuses ${what} with one message and stores nothing`, () => {
       const store = freshStore();
-      importing(store, pointTable(12), { damper: 'Other' });
+      importing(store, benchPointTable(12), { damper: 'Other' });
       const before = storeDigest(store);
       let error: unknown;
       try {
@@ -165,7 +156,7 @@ describe('benchImport', () => {
 
   it('checks a 10⁶-row file to its last row: a bad row at the end stores nothing', () => {
     const store = freshStore();
-    const text = pointTable(1_000_000, '0.49,12O0\n');
+    const text = benchPointTable(1_000_000, { extra: '0.49,12O0\n' });
     const before = storeDigest(store);
     expect(() => importing(store, text)).toThrow(
       /^run\.csv, line 1000002, column "force": "12O0" is not a number$/,

@@ -5,6 +5,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { storeCheck } from '../../db/check';
 import { storeClose, storeOpen } from '../../db/store';
+import { seededRandom } from '../seeded-random';
 import { tempFolder } from './store-fixture';
 
 const BIN = fileURLToPath(new URL('../../app/cli/bin.js', import.meta.url));
@@ -24,18 +25,6 @@ function bigBenchFile(path: string): void {
     lines.push(cells.join(','));
   }
   writeFileSync(path, `${lines.join('\n')}\n`);
-}
-
-/** mulberry32: the kill moments are random but reproducible from the seed in the message. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -80,7 +69,7 @@ describe('crash safety of the bench import', () => {
     const full = await importChild(csv, db);
     expect(full.exited).toBe('finished');
     const seed = Date.now() % 100_000;
-    const next = random(seed);
+    const next = seededRandom(seed);
     let runs = SETTINGS.length;
     const outcomes: string[] = [];
     for (let k = 0; k < KILLS; k++) {

@@ -7,20 +7,9 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { seededRandom } from '../seeded-random';
 
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'assets', 'demo');
-
-/** mulberry32: a small seeded generator, so the demo data never changes between runs. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function gaussian(rand: () => number): () => number {
   return () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
@@ -66,7 +55,7 @@ const fmt = (x: number, d: number) => x.toFixed(d);
 
 // ---- bench files -------------------------------------------------------------------------
 
-const noise = gaussian(random(20250215));
+const noise = gaussian(seededRandom(20250215));
 const CLICKS = [0, 3, 6, 9, 12];
 const LBF = 4.4482216152605;
 const INCH = 0.0254;

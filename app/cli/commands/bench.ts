@@ -1,9 +1,9 @@
-import { parseArgs } from 'node:util';
 import { clickSettingsText } from '../../../core/click-settings';
 import { numberFormat, quantityFormat, type UnitSystem } from '../../../core/units';
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
+import { commandArgsParse, helpShown, jsonText as json } from '../command-args';
 import { withStore } from '../store-session';
 import { tableFormat } from '../table';
 import { unitSystemParse } from './analyze';
@@ -29,8 +29,6 @@ rideledger [--db FILE] bench show RUN [--points] [--units si|us] [--json]
   --bins N                         trace speed bins per direction (default 24)
   --type TEXT --serial TEXT        the unit's type and serial (a new unit's, or checked)
   --again                          import a file already imported for this unit`;
-
-const json = (value: unknown) => `${JSON.stringify(value, null, 2)}\n`;
 
 type RunView = HandlerOutput<'benchList'>['runs'][number];
 
@@ -72,43 +70,33 @@ function wholeNumberOption(text: string | undefined, flag: string): number | und
 
 export async function benchCommand(args: string[], io: CliIo): Promise<number> {
   const [sub, ...rest] = args;
-  const { values, positionals } = parseArgs({
-    args: rest,
-    allowPositionals: true,
-    options: {
-      db: { type: 'string' },
-      json: { type: 'boolean' },
-      help: { type: 'boolean', short: 'h' },
-      damper: { type: 'string' },
-      clicks: { type: 'string' },
-      date: { type: 'string' },
-      stroke: { type: 'string' },
-      frequency: { type: 'string' },
-      temperature: { type: 'string' },
-      notes: { type: 'string' },
-      type: { type: 'string' },
-      serial: { type: 'string' },
-      'velocity-unit': { type: 'string' },
-      'force-unit': { type: 'string' },
-      'time-unit': { type: 'string' },
-      'displacement-unit': { type: 'string' },
-      'velocity-column': { type: 'string' },
-      'force-column': { type: 'string' },
-      'time-column': { type: 'string' },
-      'displacement-column': { type: 'string' },
-      compression: { type: 'string' },
-      trace: { type: 'boolean' },
-      points: { type: 'boolean' },
-      smoothing: { type: 'string' },
-      bins: { type: 'string' },
-      again: { type: 'boolean' },
-      units: { type: 'string' },
-    },
+  const { values, positionals } = commandArgsParse(rest, {
+    damper: { type: 'string' },
+    clicks: { type: 'string' },
+    date: { type: 'string' },
+    stroke: { type: 'string' },
+    frequency: { type: 'string' },
+    temperature: { type: 'string' },
+    notes: { type: 'string' },
+    type: { type: 'string' },
+    serial: { type: 'string' },
+    'velocity-unit': { type: 'string' },
+    'force-unit': { type: 'string' },
+    'time-unit': { type: 'string' },
+    'displacement-unit': { type: 'string' },
+    'velocity-column': { type: 'string' },
+    'force-column': { type: 'string' },
+    'time-column': { type: 'string' },
+    'displacement-column': { type: 'string' },
+    compression: { type: 'string' },
+    trace: { type: 'boolean' },
+    points: { type: 'boolean' },
+    smoothing: { type: 'string' },
+    bins: { type: 'string' },
+    again: { type: 'boolean' },
+    units: { type: 'string' },
   });
-  if (values.help || sub === '--help' || sub === '-h') {
-    io.stdout(`${BENCH_USAGE}\n`);
-    return EXIT_OK;
-  }
+  if (helpShown(values, sub, BENCH_USAGE, io)) return EXIT_OK;
   const units = unitSystemParse(values.units);
   switch (sub) {
     case 'import': {

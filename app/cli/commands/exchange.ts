@@ -1,6 +1,6 @@
-import { parseArgs } from 'node:util';
 import { apiCall } from '../../api/call';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
+import { commandArgsParse, helpShown, jsonText as json } from '../command-args';
 import { outputFileWrite } from '../output-file';
 import { readJsonFile } from '../read-json-file';
 import { withStore } from '../store-session';
@@ -16,24 +16,12 @@ export const IMPORT_USAGE = `rideledger [--db FILE] import FILE [--as NAME] [--j
   overwritten: import it under another name with --as. Damper units already here (same
   label, type and serial) are used, and bench runs already here are not added twice.`;
 
-const json = (value: unknown) => `${JSON.stringify(value, null, 2)}\n`;
-
 export async function exportCommand(args: string[], io: CliIo): Promise<number> {
-  const { values, positionals } = parseArgs({
-    args,
-    allowPositionals: true,
-    options: {
-      db: { type: 'string' },
-      out: { type: 'string' },
-      force: { type: 'boolean' },
-      json: { type: 'boolean' },
-      help: { type: 'boolean', short: 'h' },
-    },
+  const { values, positionals } = commandArgsParse(args, {
+    out: { type: 'string' },
+    force: { type: 'boolean' },
   });
-  if (values.help) {
-    io.stdout(`${EXPORT_USAGE}\n`);
-    return EXIT_OK;
-  }
+  if (helpShown(values, undefined, EXPORT_USAGE, io)) return EXIT_OK;
   if (positionals.length !== 1)
     throw new UsageError(
       `export needs one vehicle (got ${positionals.length}); see rideledger export --help`,
@@ -60,20 +48,10 @@ export async function exportCommand(args: string[], io: CliIo): Promise<number> 
 }
 
 export async function importCommand(args: string[], io: CliIo): Promise<number> {
-  const { values, positionals } = parseArgs({
-    args,
-    allowPositionals: true,
-    options: {
-      db: { type: 'string' },
-      as: { type: 'string' },
-      json: { type: 'boolean' },
-      help: { type: 'boolean', short: 'h' },
-    },
+  const { values, positionals } = commandArgsParse(args, {
+    as: { type: 'string' },
   });
-  if (values.help) {
-    io.stdout(`${IMPORT_USAGE}\n`);
-    return EXIT_OK;
-  }
+  if (helpShown(values, undefined, IMPORT_USAGE, io)) return EXIT_OK;
   if (positionals.length !== 1)
     throw new UsageError(
       `import needs one bundle file (got ${positionals.length}); see rideledger import --help`,

@@ -1,4 +1,3 @@
-import { parseArgs } from 'node:util';
 import { CAUTION_TEXT } from '../../../core/caution';
 import { clickSettingsText } from '../../../core/click-settings';
 import { damperDirectionSlopes } from '../../../core/damper-curve';
@@ -8,6 +7,7 @@ import { numberFormat, quantityFormat, type UnitSystem } from '../../../core/uni
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
+import { commandArgsParse, helpShown, jsonText as json } from '../command-args';
 import { outputFileWrite } from '../output-file';
 import { readJsonFile } from '../read-json-file';
 import { revisionRefParse } from '../revision-ref';
@@ -29,8 +29,6 @@ rideledger [--db FILE] setup diff VEHICLE@A [VEHICLE@B] [--vehicle NAME] [--unit
   diff     every changed field with old and new value, and the change of each corner's ride
            frequency, ζ bump and rebound and wheel hop. With one revision: against its parent.
            With --vehicle, revisions may be plain numbers: setup diff 3 5 --vehicle Coupe.`;
-
-const json = (value: unknown) => `${JSON.stringify(value, null, 2)}\n`;
 
 function cornerRows(corners: Record<string, SetupCorner>, system: UnitSystem): string[][] {
   const row = (label: string, cell: (c: SetupCorner) => string) => [
@@ -195,25 +193,15 @@ function historyHuman(out: HandlerOutput<'setupHistory'>): string {
 
 export async function setupCommand(args: string[], io: CliIo): Promise<number> {
   const [sub, ...rest] = args;
-  const { values, positionals } = parseArgs({
-    args: rest,
-    allowPositionals: true,
-    options: {
-      db: { type: 'string' },
-      json: { type: 'boolean' },
-      help: { type: 'boolean', short: 'h' },
-      vehicle: { type: 'string' },
-      'based-on': { type: 'string' },
-      units: { type: 'string' },
-      file: { type: 'boolean' },
-      out: { type: 'string' },
-      force: { type: 'boolean' },
-    },
+  const { values, positionals } = commandArgsParse(rest, {
+    vehicle: { type: 'string' },
+    'based-on': { type: 'string' },
+    units: { type: 'string' },
+    file: { type: 'boolean' },
+    out: { type: 'string' },
+    force: { type: 'boolean' },
   });
-  if (values.help || sub === '--help' || sub === '-h') {
-    io.stdout(`${SETUP_USAGE}\n`);
-    return EXIT_OK;
-  }
+  if (helpShown(values, sub, SETUP_USAGE, io)) return EXIT_OK;
   const units = unitSystemParse(values.units);
   const count = (n: number, what: string) => {
     if (positionals.length !== n)

@@ -1,6 +1,6 @@
-import { parseArgs } from 'node:util';
 import { apiCall } from '../../api/call';
 import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIo } from '../cli-io';
+import { commandArgsParse, helpShown, jsonText as json } from '../command-args';
 import { cliStorePath, withStore } from '../store-session';
 import { tableFormat } from '../table';
 
@@ -20,24 +20,9 @@ export const DEMO_USAGE = `rideledger [--db FILE] demo [--json]
   Loads the invented demo shop "Millbrook": two vehicles with several setup revisions each,
   damper units and bench runs. Loading it again changes nothing.`;
 
-const json = (value: unknown) => `${JSON.stringify(value, null, 2)}\n`;
-
-const COMMON = {
-  db: { type: 'string' },
-  json: { type: 'boolean' },
-  help: { type: 'boolean', short: 'h' },
-} as const;
-
 export async function backupCommand(args: string[], io: CliIo): Promise<number> {
-  const { values, positionals } = parseArgs({
-    args,
-    allowPositionals: true,
-    options: { ...COMMON, force: { type: 'boolean' } },
-  });
-  if (values.help) {
-    io.stdout(`${BACKUP_USAGE}\n`);
-    return EXIT_OK;
-  }
+  const { values, positionals } = commandArgsParse(args, { force: { type: 'boolean' } });
+  if (helpShown(values, undefined, BACKUP_USAGE, io)) return EXIT_OK;
   if (positionals.length !== 1)
     throw new UsageError(
       `backup needs one output file (got ${positionals.length}); see rideledger backup --help`,
@@ -54,11 +39,8 @@ export async function backupCommand(args: string[], io: CliIo): Promise<number> 
 }
 
 export async function checkCommand(args: string[], io: CliIo): Promise<number> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: COMMON });
-  if (values.help) {
-    io.stdout(`${CHECK_USAGE}\n`);
-    return EXIT_OK;
-  }
+  const { values, positionals } = commandArgsParse(args, {});
+  if (helpShown(values, undefined, CHECK_USAGE, io)) return EXIT_OK;
   if (positionals.length) throw new UsageError('check takes no arguments');
   const out = await withStore(values.db, io, 'read', (ctx) => apiCall('storeCheck', {}, ctx));
   if (values.json) io.stdout(json(out));
@@ -88,11 +70,8 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
 }
 
 export async function demoCommand(args: string[], io: CliIo): Promise<number> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: COMMON });
-  if (values.help) {
-    io.stdout(`${DEMO_USAGE}\n`);
-    return EXIT_OK;
-  }
+  const { values, positionals } = commandArgsParse(args, {});
+  if (helpShown(values, undefined, DEMO_USAGE, io)) return EXIT_OK;
   if (positionals.length) throw new UsageError('demo takes no arguments');
   const out = await withStore(values.db, io, 'write', (ctx) => apiCall('loadDemo', {}, ctx));
   io.stdout(

@@ -1,6 +1,6 @@
-import { parseArgs } from 'node:util';
 import { apiCall } from '../../api/call';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
+import { commandArgsParse, helpShown, jsonText as json } from '../command-args';
 import { withStore } from '../store-session';
 import { tableFormat } from '../table';
 
@@ -12,31 +12,20 @@ rideledger [--db FILE] vehicle delete NAME --yes [--json]
   A vehicle is a name (unique, ignoring case), its class or type, and notes. delete needs
   --yes; it first writes a full backup of the database to the backups folder beside it.`;
 
-const COMMON = {
-  db: { type: 'string' },
-  json: { type: 'boolean' },
-  help: { type: 'boolean', short: 'h' },
-} as const;
-
 function onePositional(positionals: string[], what: string): string {
   if (positionals.length !== 1)
     throw new UsageError(`${what} (got ${positionals.length} arguments); see rideledger vehicle --help`);
   return positionals[0] as string;
 }
 
-const json = (value: unknown) => `${JSON.stringify(value, null, 2)}\n`;
-
 export async function vehicleCommand(args: string[], io: CliIo): Promise<number> {
   const [sub, ...rest] = args;
-  const { values, positionals } = parseArgs({
-    args: rest,
-    allowPositionals: true,
-    options: { ...COMMON, kind: { type: 'string' }, notes: { type: 'string' }, yes: { type: 'boolean' } },
+  const { values, positionals } = commandArgsParse(rest, {
+    kind: { type: 'string' },
+    notes: { type: 'string' },
+    yes: { type: 'boolean' },
   });
-  if (values.help || sub === '--help' || sub === '-h') {
-    io.stdout(`${VEHICLE_USAGE}\n`);
-    return EXIT_OK;
-  }
+  if (helpShown(values, sub, VEHICLE_USAGE, io)) return EXIT_OK;
   switch (sub) {
     case 'add': {
       const name = onePositional(positionals, 'vehicle add needs the vehicle name');
