@@ -1,5 +1,8 @@
-import { readFileSync } from 'node:fs';
+import { readFileSync, statSync } from 'node:fs';
 import { InputError } from '../core/input-error';
+
+/** The largest text file read whole: well inside what one JavaScript string can hold. */
+export const TEXT_FILE_MAX_BYTES = 256 * 2 ** 20;
 
 /** Why a file could not be read, in words. */
 export function fileErrorText(e: unknown): string {
@@ -17,8 +20,15 @@ export function fileErrorText(e: unknown): string {
 export function textFileRead(path: string): string {
   let bytes: Buffer;
   try {
+    const size = statSync(path).size;
+    if (size > TEXT_FILE_MAX_BYTES)
+      throw new InputError(
+        path,
+        `is ${(size / 2 ** 20).toFixed(0)} MiB; files up to ${TEXT_FILE_MAX_BYTES / 2 ** 20} MiB (about 10 million bench rows) are read — split it`,
+      );
     bytes = readFileSync(path);
   } catch (e) {
+    if (e instanceof InputError) throw e;
     throw new InputError(path, `cannot read the file: ${fileErrorText(e)}`);
   }
   if (bytes[0] === 0xff && bytes[1] === 0xfe) return bytes.subarray(2).toString('utf16le');

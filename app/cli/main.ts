@@ -23,7 +23,7 @@ const COMMANDS: Record<string, Command> = {
 
 /**
  * `--db FILE` may come before the command (rideledger --db shop.sqlite vehicle list); each
- * command reads it among its own options, so it is moved behind the command's arguments.
+ * command reads it among its own options, so leading ones are moved behind the arguments.
  */
 function globalOptionsMoved(argv: string[]): string[] {
   const moved: string[] = [];
@@ -61,7 +61,9 @@ function errorLine(e: unknown): { line: string; code: number } {
 
 /** Runs the command line `argv` (without node and the script); returns the exit code. */
 export async function cliMain(argv: string[], io: CliIo): Promise<number> {
-  const [name, ...rest] = globalOptionsMoved(argv);
+  const [name, ...afterName] = globalOptionsMoved(argv);
+  // Also between a command and its subcommand: rideledger vehicle --db shop.sqlite list.
+  const rest = globalOptionsMoved(afterName);
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     io.stdout(usage());
     return name === undefined ? EXIT_BAD_INPUT : EXIT_OK;

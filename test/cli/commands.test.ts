@@ -95,9 +95,10 @@ describe('rideledger, as a shop uses it', () => {
     expect(JSON.parse(await ok('vehicle', 'list', '--json')).vehicles).toEqual([]);
   });
 
-  it('loads the demo, prints every listing as JSON, and takes --db before the command', async () => {
+  it('loads the demo, prints every listing as JSON, and takes --db before the command or its subcommand', async () => {
     const db = join(tempFolder(), 'demo.sqlite');
     expect((await cli('--db', db, 'demo')).stdout).toMatch(/Loaded the invented Millbrook demo shop/);
+    expect((await cli('vehicle', '--db', db, 'list')).stdout).toMatch(/Millbrook coupe #27/);
     expect((await cli('--db', db, 'demo')).stdout).toMatch(/already in this database; nothing was changed/);
     for (const args of [
       ['vehicle', 'list'],
@@ -127,7 +128,12 @@ describe('rideledger, as a shop uses it', () => {
     const dir = tempFolder();
     const db = join(dir, 'none.sqlite');
     expect((await cli('vehicle', 'list', '--db', db)).stdout).toMatch(/No vehicles yet/);
-    expect((await cli('check', '--db', db)).code).toBe(0);
+    const check = await cli('check', '--db', db);
+    expect(check.code).toBe(2);
+    expect(check.stderr).toMatch(/none\.sqlite: there is no database here yet/);
+    expect((await cli('setup', 'history', 'X', '--db', db)).stderr).toMatch(
+      /no vehicle named "X"; there are no vehicles yet/,
+    );
     const failed = await cli(
       'setup',
       'save',

@@ -27,7 +27,7 @@ export async function backupCommand(args: string[], io: CliIo): Promise<number> 
     throw new UsageError(
       `backup needs one output file (got ${positionals.length}); see rideledger backup --help`,
     );
-  const out = await withStore(values.db, io, 'read', (ctx) =>
+  const out = await withStore(values.db, io, 'existing', (ctx) =>
     apiCall('storeBackup', { path: positionals[0] as string, overwrite: values.force === true }, ctx),
   );
   io.stdout(
@@ -42,7 +42,7 @@ export async function checkCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = commandArgsParse(args, {});
   if (helpShown(values, undefined, CHECK_USAGE, io)) return EXIT_OK;
   if (positionals.length) throw new UsageError('check takes no arguments');
-  const out = await withStore(values.db, io, 'read', (ctx) => apiCall('storeCheck', {}, ctx));
+  const out = await withStore(values.db, io, 'existing', (ctx) => apiCall('storeCheck', {}, ctx));
   if (values.json) io.stdout(json(out));
   else {
     const c = out.counts;
