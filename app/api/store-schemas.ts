@@ -82,9 +82,13 @@ export const figureChangeSchema = z.strictObject({
   after: finite,
 });
 
+/**
+ * A stored fit of one direction. Loose on purpose: runs stored with a fit that a later
+ * damperDirectionFit enriches (more fields) must still read, and the bundle carry them.
+ */
 const directionFitSchema = z
-  .strictObject({
-    curve: z.strictObject({
+  .looseObject({
+    curve: z.looseObject({
       kind: z.literal('bilinear'),
       lowSpeed: finite,
       kneeSpeed: finite,
@@ -95,7 +99,7 @@ const directionFitSchema = z
   })
   .nullable();
 
-export const benchFitSchema = z.strictObject({
+export const benchFitSchema = z.looseObject({
   bump: directionFitSchema,
   rebound: directionFitSchema,
   basis: z.enum(['points', 'binned']),

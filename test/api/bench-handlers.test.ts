@@ -1,5 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { apiCall } from '../../app/api/call';
+import { benchRunById, benchRunInsert } from '../../db/queries/bench-run';
+import type { BenchRunRow } from '../../db/rows';
+import { setupFileFixture } from '../core/setup-fixture';
 import { storeDigest } from '../db/store-fixture';
 import { freshContext } from './api-fixture';
 
@@ -74,5 +77,26 @@ describe('bench handlers', () => {
     await apiCall('benchImport', { damper: 'D-1', source: { text: TABLE, name: 'x.csv' } }, ctx);
     await expect(apiCall('benchList', { damper: 'X' }, ctx)).rejects.toThrow(/units: "D-1"/);
     await expect(apiCall('benchShow', { run: 99 }, ctx)).rejects.toThrow(/^run: there is no bench run #99/);
+  });
+
+  it('still reads a run whose stored fit carries fields a later fit adds, and exports them', async () => {
+    const ctx = freshContext();
+    const out = await apiCall('benchImport', { damper: 'D-1', source: { text: TABLE, name: 'x.csv' } }, ctx);
+    const row = benchRunById(ctx.store.db, out.runs[0]?.id as number) as BenchRunRow;
+    const fit = JSON.parse(row.fit_json);
+    fit.bump.confidence = 0.95;
+    const { id: _id, ...rest } = row;
+    benchRunInsert(ctx.store.db, { ...rest, source_sha256: 'e'.repeat(64), fit_json: JSON.stringify(fit) });
+    const { runs } = await apiCall('benchList', { damper: 'D-1' }, ctx);
+    expect(runs[1]?.fit.bump).toMatchObject({ confidence: 0.95 });
+    await apiCall('vehicleAdd', { name: 'V' }, ctx);
+    const file = setupFileFixture();
+    file.vehicle = 'V';
+    file.corners.FL.damperUnit = 'D-1';
+    await apiCall('setupSave', { file }, ctx);
+    const { bundle } = await apiCall('storeExport', { vehicle: 'V' }, ctx);
+    expect(bundle.dampers.find((d) => d.label === 'D-1')?.runs[1]?.fit).toMatchObject({
+      bump: { confidence: 0.95 },
+    });
   });
 });
