@@ -1,5 +1,26 @@
 import { z } from 'zod';
 import { analyzeReportSchema } from './schemas';
+import {
+  backupResultSchema,
+  benchFitSchema,
+  benchImportInputSchema,
+  benchRunSummarySchema,
+  bundleSchema,
+  checkReportSchema,
+  cornerFiguresSchema,
+  cornerPositionSchema,
+  cornerWarningSchema,
+  damperSchema,
+  fieldChangeSchema,
+  figureChangeSchema,
+  revisionRefSchema,
+  revisionSummarySchema,
+  unitSystemSchema,
+  vehicleRefSchema,
+  vehicleSchema,
+} from './store-schemas';
+
+const vehicleNamed = z.strictObject({ id: z.number().int(), name: z.string() });
 
 /**
  * The one typed API contract: handler name → zod input and output schemas. The command,
@@ -15,9 +36,150 @@ export const contract = {
     }),
     output: analyzeReportSchema,
   },
+
+  vehicleAdd: {
+    /** Name, class or type, notes: read by core (a name is one line, no "@", not taken yet). */
+    input: z.strictObject({ name: z.unknown(), kind: z.unknown().optional(), notes: z.unknown().optional() }),
+    output: z.strictObject({ vehicle: vehicleSchema }),
+  },
+  vehicleList: {
+    input: z.strictObject({}),
+    output: z.strictObject({ vehicles: z.array(vehicleSchema) }),
+  },
+  vehicleShow: {
+    input: z.strictObject({ vehicle: vehicleRefSchema }),
+    output: z.strictObject({
+      vehicle: vehicleSchema,
+      latest: revisionSummarySchema.nullable(),
+      /** The damper unit fitted at each corner in the newest revision. */
+      dampers: z.array(z.strictObject({ position: cornerPositionSchema, label: z.string() })),
+    }),
+  },
+  vehicleDelete: {
+    /** `confirm: true` is the API's `--yes`: a full backup is made first, then the vehicle goes. */
+    input: z.strictObject({
+      vehicle: vehicleRefSchema,
+      confirm: z.literal(true, 'deleting a vehicle needs confirm: true'),
+    }),
+    output: z.strictObject({
+      vehicle: z.string(),
+      revisionsDeleted: z.number().int(),
+      backupPath: z.string(),
+    }),
+  },
+
+  setupSave: {
+    /** A setup file's content; the vehicle and parent from here override the file's. */
+    input: z.strictObject({
+      file: z.unknown(),
+      vehicle: vehicleRefSchema.optional(),
+      basedOnRevision: z.number().int().positive().optional(),
+    }),
+    output: z.strictObject({
+      vehicle: vehicleNamed,
+      revision: revisionSummarySchema,
+      branched: z.boolean(),
+      dampersCreated: z.array(z.string()),
+    }),
+  },
+  setupShow: {
+    input: revisionRefSchema.extend({ units: unitSystemSchema }),
+    output: z.strictObject({
+      vehicle: vehicleNamed,
+      revision: revisionSummarySchema,
+      /** The setup file (our format) of this revision, in the unit system asked for. */
+      file: z.record(z.string(), z.unknown()),
+      figures: z.strictObject({
+        FL: cornerFiguresSchema,
+        FR: cornerFiguresSchema,
+        RL: cornerFiguresSchema,
+        RR: cornerFiguresSchema,
+      }),
+      warnings: z.array(cornerWarningSchema),
+      caution: z.string(),
+    }),
+  },
+  setupHistory: {
+    input: z.strictObject({ vehicle: vehicleRefSchema }),
+    output: z.strictObject({ vehicle: vehicleNamed, revisions: z.array(revisionSummarySchema) }),
+  },
+  setupDiff: {
+    /** Two revisions (of one vehicle or two); `b` left without a revision number is the newest. */
+    input: z.strictObject({ a: revisionRefSchema, b: revisionRefSchema, units: unitSystemSchema }),
+    output: z.strictObject({
+      a: z.strictObject({ vehicle: z.string(), revision: z.number().int(), name: z.string() }),
+      b: z.strictObject({ vehicle: z.string(), revision: z.number().int(), name: z.string() }),
+      fields: z.array(fieldChangeSchema),
+      figures: z.array(figureChangeSchema),
+      /** The model's warnings for revision b. */
+      warnings: z.array(cornerWarningSchema),
+      caution: z.string(),
+    }),
+  },
+
+  benchImport: {
+    input: benchImportInputSchema,
+    output: z.strictObject({
+      damper: damperSchema,
+      damperCreated: z.boolean(),
+      runs: z.array(benchRunSummarySchema),
+      warnings: z.array(z.string()),
+    }),
+  },
+  benchList: {
+    /** Every damper unit; with `damper`, that unit and its runs. */
+    input: z.strictObject({ damper: z.string().optional() }),
+    output: z.strictObject({ dampers: z.array(damperSchema), runs: z.array(benchRunSummarySchema) }),
+  },
+  benchShow: {
+    input: z.strictObject({ run: z.number().int().positive(), points: z.boolean().optional() }),
+    output: z.strictObject({
+      run: benchRunSummarySchema,
+      fit: benchFitSchema,
+      /** [velocity m/s, force N] pairs, compression positive, when asked for. */
+      points: z.array(z.tuple([z.number(), z.number()])).optional(),
+    }),
+  },
+
+  storeExport: {
+    input: z.strictObject({ vehicle: vehicleRefSchema }),
+    output: z.strictObject({ bundle: bundleSchema }),
+  },
+  storeImport: {
+    input: z.strictObject({ bundle: bundleSchema, asName: z.string().optional() }),
+    output: z.strictObject({
+      vehicle: z.string(),
+      revisions: z.number().int(),
+      dampersCreated: z.array(z.string()),
+      dampersMatched: z.array(z.string()),
+      runsImported: z.number().int(),
+      runsAlreadyPresent: z.number().int(),
+    }),
+  },
+  storeBackup: {
+    input: z.strictObject({ path: z.string().min(1), overwrite: z.boolean().optional() }),
+    output: backupResultSchema,
+  },
+  storeCheck: {
+    input: z.strictObject({}),
+    output: checkReportSchema,
+  },
+  loadDemo: {
+    input: z.strictObject({}),
+    output: z.strictObject({
+      loaded: z.boolean(),
+      vehicles: z.array(z.string()),
+      revisions: z.number().int(),
+      dampers: z.array(z.string()),
+      benchRuns: z.number().int(),
+      message: z.string(),
+    }),
+  },
 } as const;
 
 export type Contract = typeof contract;
 export type HandlerName = keyof Contract;
 export type HandlerInput<N extends HandlerName> = z.input<Contract[N]['input']>;
 export type HandlerOutput<N extends HandlerName> = z.output<Contract[N]['output']>;
+/** What a handler receives: the input after its schema has checked it and filled defaults. */
+export type HandlerParsedInput<N extends HandlerName> = z.output<Contract[N]['input']>;

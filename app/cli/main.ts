@@ -2,6 +2,11 @@ import { InputError } from '../../core/input-error';
 import { analyzeCommand } from './commands/analyze';
 import { benchSimCommand } from './commands/bench-sim';
 import { simulateCommand } from './commands/simulate';
+import { benchCommand } from './commands/bench';
+import { exportCommand, importCommand } from './commands/exchange';
+import { setupCommand } from './commands/setup';
+import { backupCommand, checkCommand, demoCommand } from './commands/store';
+import { vehicleCommand } from './commands/vehicle';
 import { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_OK, UsageError, type CliIo } from './cli-io';
 
 type Command = { summary: string; run: (args: string[], io: CliIo) => Promise<number> };
@@ -13,7 +18,35 @@ const COMMANDS: Record<string, Command> = {
     run: simulateCommand,
   },
   'bench-sim': { summary: 'benchmark of the bump simulation (simulations per second)', run: benchSimCommand },
+  vehicle: { summary: 'add, list, show or delete vehicles', run: vehicleCommand },
+  setup: { summary: 'save, show, history and diff of setup revisions', run: setupCommand },
+  bench: { summary: 'import, list and show damper bench runs', run: benchCommand },
+  export: { summary: 'write a vehicle with its revisions and bench data to a bundle', run: exportCommand },
+  import: { summary: 'read a bundle into the database', run: importCommand },
+  backup: { summary: 'copy the whole database, checked', run: backupCommand },
+  check: { summary: 'check the database for damage', run: checkCommand },
+  demo: { summary: 'load the invented Millbrook demo shop', run: demoCommand },
 };
+
+/**
+ * `--db FILE` may come before the command (rideledger --db shop.sqlite vehicle list); each
+ * command reads it among its own options, so leading ones are moved behind the arguments.
+ */
+function globalOptionsMoved(argv: string[]): string[] {
+  const moved: string[] = [];
+  let i = 0;
+  while (i < argv.length) {
+    const a = argv[i] as string;
+    if (a === '--db' && i + 1 < argv.length) {
+      moved.push(a, argv[i + 1] as string);
+      i += 2;
+    } else if (a.startsWith('--db=')) {
+      moved.push(a);
+      i += 1;
+    } else break;
+  }
+  return [...argv.slice(i), ...moved];
+}
 
 function usage(): string {
   const lines = Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(12)} ${c.summary}`);
@@ -27,12 +60,17 @@ function errorLine(e: unknown): { line: string; code: number } {
   const code = (e as { code?: string }).code;
   if (typeof code === 'string' && code.startsWith('ERR_PARSE_ARGS'))
     return { line: (e as Error).message, code: EXIT_BAD_INPUT };
+  // SQLite's own failures (a lock held too long, a full disk, a damaged file): its words, no stack.
+  if (typeof code === 'string' && code.startsWith('SQLITE_'))
+    return { line: `the database reported ${code}: ${(e as Error).message}`, code: EXIT_FAILURE };
   return { line: `internal error: ${(e as Error).stack ?? String(e)}`, code: EXIT_FAILURE };
 }
 
 /** Runs the command line `argv` (without node and the script); returns the exit code. */
 export async function cliMain(argv: string[], io: CliIo): Promise<number> {
-  const [name, ...rest] = argv;
+  const [name, ...afterName] = globalOptionsMoved(argv);
+  // Also between a command and its subcommand: rideledger vehicle --db shop.sqlite list.
+  const rest = globalOptionsMoved(afterName);
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     io.stdout(usage());
     return name === undefined ? EXIT_BAD_INPUT : EXIT_OK;

@@ -6,6 +6,7 @@ import { eventBump } from '../../core/event';
 import { InputError } from '../../core/input-error';
 import { eventSimulate } from '../../core/simulate';
 import { MILLBROOK_FRONT_LEFT } from '../core/demo-corner';
+import { freshContext } from './api-fixture';
 
 const demo = (name: string): Record<string, unknown> =>
   JSON.parse(readFileSync(new URL(`../../assets/demo/${name}`, import.meta.url), 'utf8')) as Record<
@@ -14,9 +15,9 @@ const demo = (name: string): Record<string, unknown> =>
   >;
 
 describe('analyzeCorner: the bump section', () => {
-  it('has exactly the keys DESIGN.md lists, from the nonlinear simulation of the file’s bump', () => {
+  it('has exactly the keys DESIGN.md lists, from the nonlinear simulation of the file’s bump', async () => {
     const raw = demo('club-coupe-front-left.json');
-    const report = apiCall('analyzeCorner', { file: raw });
+    const report = await apiCall('analyzeCorner', { file: raw }, freshContext());
     const bump = report.bump as NonNullable<typeof report.bump>;
     expect(Object.keys(bump).sort()).toEqual(
       [
@@ -40,19 +41,23 @@ describe('analyzeCorner: the bump section', () => {
     expect(report.warnings.map((w) => w.code)).toContain('tire-lift-off');
   });
 
-  it('fills it for the tabulated demo corner too, with its bump-stop and curve warnings', () => {
-    const report = apiCall('analyzeCorner', { file: demo('club-coupe-rear-left.json') });
+  it('fills it for the tabulated demo corner too, with its bump-stop and curve warnings', async () => {
+    const report = await apiCall(
+      'analyzeCorner',
+      { file: demo('club-coupe-rear-left.json') },
+      freshContext(),
+    );
     expect(report.bump?.bumpStopContactTime).toBeGreaterThan(0);
     const codes = report.warnings.map((w) => w.code);
     expect(codes).toContain('bump-stop-engaged');
     expect(codes).toContain('damper-speed-beyond-data-bump');
   });
 
-  it('leaves it out when the file has no bump, and names a bad bump field', () => {
+  it('leaves it out when the file has no bump, and names a bad bump field', async () => {
     const { bump: _bump, ...raw } = demo('club-coupe-front-left.json');
-    expect(apiCall('analyzeCorner', { file: raw }).bump).toBeUndefined();
+    expect((await apiCall('analyzeCorner', { file: raw }, freshContext())).bump).toBeUndefined();
     const bad = { ...raw, bump: { height: '25 mm', length: '0.6 m', speed: '-3 m/s' } };
-    expect(() => apiCall('analyzeCorner', { file: bad })).toThrow(InputError);
-    expect(() => apiCall('analyzeCorner', { file: bad })).toThrow(/bump\.speed/);
+    await expect(apiCall('analyzeCorner', { file: bad }, freshContext())).rejects.toThrow(InputError);
+    await expect(apiCall('analyzeCorner', { file: bad }, freshContext())).rejects.toThrow(/bump\.speed/);
   });
 });

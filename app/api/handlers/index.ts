@@ -1,7 +1,35 @@
-import type { HandlerInput, HandlerName, HandlerOutput } from '../contract';
+import type { ApiContext } from '../context';
+import type { HandlerName, HandlerOutput, HandlerParsedInput } from '../contract';
 import { analyzeCorner } from './analyze';
+import { benchImportHandler, benchListHandler, benchShowHandler } from './bench';
+import { loadDemo } from './demo';
+import { storeExportHandler, storeImportHandler } from './exchange';
+import { setupDiffHandler, setupHistoryHandler, setupSaveHandler, setupShowHandler } from './setup';
+import { storeBackupHandler, storeCheckHandler } from './store';
+import { vehicleAdd, vehicleDeleteHandler, vehicleListHandler, vehicleShow } from './vehicle';
 
 /** Every handler of the contract, by name; `satisfies` keeps the map and the contract in step. */
 export const handlers = {
   analyzeCorner,
-} satisfies { [N in HandlerName]: (input: HandlerInput<N>) => HandlerOutput<N> };
+  vehicleAdd,
+  vehicleList: vehicleListHandler,
+  vehicleShow,
+  vehicleDelete: vehicleDeleteHandler,
+  setupSave: setupSaveHandler,
+  setupShow: setupShowHandler,
+  setupHistory: setupHistoryHandler,
+  setupDiff: setupDiffHandler,
+  benchImport: benchImportHandler,
+  benchList: benchListHandler,
+  benchShow: benchShowHandler,
+  storeExport: storeExportHandler,
+  storeImport: storeImportHandler,
+  storeBackup: storeBackupHandler,
+  storeCheck: storeCheckHandler,
+  loadDemo,
+} satisfies {
+  [N in HandlerName]: (
+    input: HandlerParsedInput<N>,
+    context: ApiContext,
+  ) => HandlerOutput<N> | Promise<HandlerOutput<N>>;
+};

@@ -1,0 +1,140 @@
+import { CAUTION_TEXT } from '../../../core/caution';
+import { cornerQuarterCar, cornerRideFigures } from '../../../core/corner';
+import { InputError } from '../../../core/input-error';
+import { modesOf } from '../../../core/modal';
+import { SETUP_FIGURE_LABELS, setupDiff } from '../../../core/setup-diff';
+import { setupFileParse, setupFileWrite } from '../../../core/setup-file';
+import { CORNER_POSITIONS, type SetupSheet } from '../../../core/setup-sheet';
+import { cornerWarnings } from '../../../core/warnings';
+import type Database from 'better-sqlite3';
+import { setupRevisionById, setupRevisionList } from '../../../db/queries/setup-revision';
+import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';
+import { setupRevisionResolve, setupSave, setupSheetRead } from '../../../db/setup-store';
+import { vehicleResolve } from '../../../db/vehicle-ref';
+import type { ApiContext } from '../context';
+import type { HandlerOutput, HandlerParsedInput } from '../contract';
+import { revisionListViewOf, revisionViewOf } from '../record-views';
+
+type CornerWarning = HandlerOutput<'setupShow'>['warnings'][number];
+
+/** The model's warnings for each corner of a sheet, tagged with the corner. */
+function sheetWarnings(sheet: SetupSheet): CornerWarning[] {
+  return CORNER_POSITIONS.flatMap((p) => {
+    const c = sheet.corners[p].analysis;
+    return cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c))).map((w) => ({
+      position: p,
+      ...w,
+    }));
+  });
+}
+
+function parentNumberOf(db: Database.Database, r: SetupRevisionRow): number | null {
+  return r.parent_id === null ? null : (setupRevisionById(db, r.parent_id)?.number ?? null);
+}
+
+/** Handler `setupSave`: a setup file becomes a new revision of its vehicle; nothing is overwritten. */
+export function setupSaveHandler(
+  input: HandlerParsedInput<'setupSave'>,
+  { store }: ApiContext,
+): HandlerOutput<'setupSave'> {
+  const file = setupFileParse(input.file);
+  const ref = input.vehicle ?? file.vehicle;
+  if (ref === undefined)
+    throw new InputError(
+      'vehicle',
+      'say which vehicle this setup is for: --vehicle NAME, or "vehicle" in the file',
+    );
+  const v = vehicleResolve(store.db, ref);
+  if (input.vehicle !== undefined && file.vehicle !== undefined) {
+    const fromFile = vehicleResolve(store.db, file.vehicle, 'vehicle (in the file)');
+    if (fromFile.id !== v.id)
+      throw new InputError(
+        'vehicle',
+        `the file is for "${fromFile.name}" but the vehicle given is "${v.name}"; nothing was saved`,
+      );
+  }
+  const parentNumber = input.basedOnRevision ?? file.basedOnRevision;
+  const saved = setupSave(store, v, file.sheet, parentNumber === undefined ? {} : { parentNumber });
+  return {
+    vehicle: { id: v.id, name: v.name },
+    revision: revisionViewOf(saved.revision, saved.parentNumber),
+    branched: saved.branched,
+    dampersCreated: saved.dampersCreated,
+  };
+}
+
+function revisionOf(
+  db: Database.Database,
+  ref: { vehicle: string | number; revision?: number | undefined },
+  field: string,
+): { v: VehicleRow; r: SetupRevisionRow } {
+  const v = vehicleResolve(db, ref.vehicle, `${field}.vehicle`);
+  return { v, r: setupRevisionResolve(db, v, ref.revision, `${field}.revision`) };
+}
+
+/** Handler `setupShow`: one revision as a setup file, with each corner's ride figures, warnings and the caution. */
+export function setupShowHandler(
+  input: HandlerParsedInput<'setupShow'>,
+  { store }: ApiContext,
+): HandlerOutput<'setupShow'> {
+  const v = vehicleResolve(store.db, input.vehicle);
+  const r = setupRevisionResolve(store.db, v, input.revision);
+  const sheet = setupSheetRead(store.db, r);
+  const figures = {} as HandlerOutput<'setupShow'>['figures'];
+  for (const p of CORNER_POSITIONS) {
+    const f = cornerRideFigures(sheet.corners[p].analysis);
+    figures[p] = {
+      wheelRate: f.wheelRate,
+      rideRate: f.rideRate,
+      rideFrequencyHz: f.rideFrequencyHz,
+      wheelHopFrequencyHz: f.wheelHopFrequencyHz,
+      dampingRatio: { ...f.dampingRatio },
+      dampingClass: { ...f.dampingClass },
+    };
+  }
+  return {
+    vehicle: { id: v.id, name: v.name },
+    revision: revisionViewOf(r, parentNumberOf(store.db, r)),
+    file: setupFileWrite({ vehicle: v.name, basedOnRevision: r.number, sheet }, input.units),
+    figures,
+    warnings: sheetWarnings(sheet),
+    caution: CAUTION_TEXT,
+  };
+}
+
+/** Handler `setupHistory`: every revision of a vehicle, oldest first, with what changed in each. */
+export function setupHistoryHandler(
+  input: HandlerParsedInput<'setupHistory'>,
+  { store }: ApiContext,
+): HandlerOutput<'setupHistory'> {
+  const v = vehicleResolve(store.db, input.vehicle);
+  return {
+    vehicle: { id: v.id, name: v.name },
+    revisions: setupRevisionList(store.db, v.id).map(revisionListViewOf),
+  };
+}
+
+/**
+ * Handler `setupDiff`: every field that differs between two revisions with old and new
+ * value and unit, the change of each corner's headline ride figures, the warnings of the
+ * second revision and the caution.
+ */
+export function setupDiffHandler(
+  input: HandlerParsedInput<'setupDiff'>,
+  { store }: ApiContext,
+): HandlerOutput<'setupDiff'> {
+  const db = store.db;
+  const a = revisionOf(db, input.a, 'a');
+  const b = revisionOf(db, input.b, 'b');
+  const sa = setupSheetRead(db, a.r);
+  const sb = setupSheetRead(db, b.r);
+  const diff = setupDiff(sa, sb, input.units);
+  return {
+    a: { vehicle: a.v.name, revision: a.r.number, name: a.r.name },
+    b: { vehicle: b.v.name, revision: b.r.number, name: b.r.name },
+    fields: diff.fields,
+    figures: diff.figures.map((f) => ({ ...f, ...SETUP_FIGURE_LABELS[f.figure] })),
+    warnings: sheetWarnings(sb),
+    caution: CAUTION_TEXT,
+  };
+}

@@ -1,0 +1,25 @@
+import { InputError } from './input-error';
+
+const ISO_DATE = /^(\d{4})-(\d{2})-(\d{2})$/;
+
+/**
+ * Reads a calendar date written as ISO 8601 `YYYY-MM-DD` (the one form that sorts and that
+ * no reader takes for day-month or month-day), and checks that the day exists.
+ * @throws InputError naming `field`.
+ * @example calendarDateParse('2025-04-12', 'date') // '2025-04-12'
+ */
+export function calendarDateParse(raw: unknown, field: string): string {
+  if (typeof raw !== 'string')
+    throw new InputError(
+      field,
+      `got ${raw === null ? 'null' : typeof raw}; expected a date such as "2025-04-12"`,
+    );
+  const text = raw.trim();
+  const m = ISO_DATE.exec(text);
+  if (!m) throw new InputError(field, `got "${raw}"; expected a date written YYYY-MM-DD, e.g. "2025-04-12"`);
+  const [year, month, day] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  const d = new Date(Date.UTC(year, month - 1, day));
+  if (d.getUTCFullYear() !== year || d.getUTCMonth() !== month - 1 || d.getUTCDate() !== day || year < 1900)
+    throw new InputError(field, `"${raw}" is not a day of the calendar`);
+  return text;
+}

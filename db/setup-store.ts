@@ -1,0 +1,115 @@
+import type Database from 'better-sqlite3';
+import { InputError } from '../core/input-error';
+import { setupDiff, setupDiffSummary } from '../core/setup-diff';
+import { CORNER_POSITIONS, type SetupSheet } from '../core/setup-sheet';
+import { nameKey } from '../core/text-field';
+import { damperUnitEnsure } from './damper-units';
+import { setupCornerInsert, setupCornersOf } from './queries/setup-corner';
+import {
+  setupRevisionById,
+  setupRevisionByNumber,
+  setupRevisionInsert,
+  setupRevisionLatest,
+} from './queries/setup-revision';
+import type { SetupRevisionRow, VehicleRow } from './rows';
+import { setupCornerRowOf, setupRevisionColumnsOf, setupSheetOf } from './setup-rows';
+import { storeTransaction, type Store } from './store';
+
+/** What a save made. */
+export type SetupSaveResult = {
+  revision: SetupRevisionRow;
+  parentNumber: number | null;
+  /** The parent is not the vehicle's newest revision: the save branches from an older one. */
+  branched: boolean;
+  /** Damper labels the sheet named that were not in the library and were added to it. */
+  dampersCreated: string[];
+};
+
+/** The sheet of a revision row. */
+export function setupSheetRead(db: Database.Database, revision: SetupRevisionRow): SetupSheet {
+  return setupSheetOf(revision, setupCornersOf(db, revision.id));
+}
+
+/**
+ * A revision of a vehicle by number, or the newest when `number` is undefined.
+ * @throws InputError naming `field` when there is none.
+ */
+export function setupRevisionResolve(
+  db: Database.Database,
+  vehicle: VehicleRow,
+  number: number | undefined,
+  field = 'revision',
+): SetupRevisionRow {
+  const row =
+    number === undefined
+      ? setupRevisionLatest(db, vehicle.id)
+      : setupRevisionByNumber(db, vehicle.id, number);
+  if (row) return row;
+  const latest = setupRevisionLatest(db, vehicle.id);
+  throw new InputError(
+    field,
+    latest
+      ? `"${vehicle.name}" has no revision ${number}; its revisions are 1 to ${latest.number}`
+      : `"${vehicle.name}" has no setup saved yet (setup save FILE --vehicle "${vehicle.name}")`,
+  );
+}
+
+/**
+ * Saves a sheet as a new revision of a vehicle, never overwriting: the next number, linked
+ * to its parent (the newest revision unless another is named), with a one-line summary of
+ * what changed from the parent. Damper labels new to the library are added to it. One
+ * transaction: on any error nothing is stored.
+ * @throws InputError when the parent revision does not exist.
+ */
+export function setupSave(
+  store: Store,
+  vehicle: VehicleRow,
+  sheet: SetupSheet,
+  options: { parentNumber?: number; now?: Date } = {},
+): SetupSaveResult {
+  const db = store.db;
+  return storeTransaction(store, () => {
+    const now = (options.now ?? new Date()).toISOString();
+    const latest = setupRevisionLatest(db, vehicle.id);
+    const parent =
+      options.parentNumber === undefined
+        ? latest
+        : setupRevisionResolve(db, vehicle, options.parentNumber, 'basedOnRevision');
+    const summary = parent ? setupDiffSummary(setupDiff(setupSheetRead(db, parent), sheet)) : 'first setup';
+    const dampersCreated: string[] = [];
+    const damperIds = new Map<string, number>();
+    for (const p of CORNER_POSITIONS) {
+      const label = sheet.corners[p].damperUnit;
+      if (label === '' || damperIds.has(nameKey(label))) continue;
+      const { row, created } = damperUnitEnsure(db, label, undefined, now);
+      damperIds.set(nameKey(label), row.id);
+      if (created) dampersCreated.push(label);
+    }
+    const id = setupRevisionInsert(db, {
+      vehicle_id: vehicle.id,
+      number: (latest?.number ?? 0) + 1,
+      parent_id: parent?.id ?? null,
+      ...setupRevisionColumnsOf(sheet),
+      summary,
+      saved_at: now,
+    });
+    for (const p of CORNER_POSITIONS) {
+      const c = sheet.corners[p];
+      setupCornerInsert(
+        db,
+        setupCornerRowOf(
+          id,
+          p,
+          c,
+          c.damperUnit === '' ? null : (damperIds.get(nameKey(c.damperUnit)) ?? null),
+        ),
+      );
+    }
+    return {
+      revision: setupRevisionById(db, id) as SetupRevisionRow,
+      parentNumber: parent?.number ?? null,
+      branched: parent !== undefined && latest !== undefined && parent.id !== latest.id,
+      dampersCreated,
+    };
+  });
+}
