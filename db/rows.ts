@@ -89,3 +89,6 @@ export type BenchRunRow = {
 export type BenchRunSummaryRow = Omit<BenchRunRow, 'points' | 'trace'>;
 
 export type StoreEventRow = { id: number; at: string; kind: string; detail: string };
+
+/** A row of `app_setting` (schema 3): one setting or draft of the desktop app, its value JSON text. */
+export type AppSettingRow = { key: string; value: string; updated_at: string };

@@ -20,6 +20,13 @@ import {
   vehicleSchema,
 } from './store-schemas';
 
+/** Names of the desktop app's settings and drafts: `caution-acknowledged`, `draft:Millbrook coupe #27`. */
+const settingKeySchema = z
+  .string()
+  .min(1)
+  .max(200)
+  .regex(/^[a-z][a-z0-9-]*(:.+)?$/, 'expected a setting name such as "units" or "draft:Vehicle name"');
+
 const vehicleNamed = z.strictObject({ id: z.number().int(), name: z.string() });
 
 /**
@@ -163,6 +170,24 @@ export const contract = {
   storeCheck: {
     input: z.strictObject({}),
     output: checkReportSchema,
+  },
+  settingGet: {
+    input: z.strictObject({ key: settingKeySchema }),
+    output: z.strictObject({ key: z.string(), value: z.unknown(), updatedAt: z.string().nullable() }),
+  },
+  settingSet: {
+    /** Any JSON value up to 4 MB as text; null removes the setting. */
+    input: z.strictObject({
+      key: settingKeySchema,
+      value: z
+        .unknown()
+        .refine((v) => JSON.stringify(v ?? null).length <= 4 * 1024 * 1024, 'is larger than 4 MB'),
+    }),
+    output: z.strictObject({ key: z.string(), updatedAt: z.string().nullable() }),
+  },
+  settingList: {
+    input: z.strictObject({ prefix: z.string().max(200) }),
+    output: z.strictObject({ keys: z.array(z.string()) }),
   },
   loadDemo: {
     input: z.strictObject({}),

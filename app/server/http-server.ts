@@ -24,6 +24,12 @@ export type ServerOptions = {
   /** Largest request body accepted (bytes); bench files can be large. */
   maxBodyBytes?: number;
   log?: (line: string) => void;
+  /** Long calls run as jobs: started, polled for their state, cancelled. */
+  jobs?: {
+    start: (name: string, input: unknown) => string;
+    get: (id: string) => unknown;
+    cancel: (id: string) => Promise<unknown>;
+  };
 };
 
 export type RunningServer = {
@@ -185,39 +191,68 @@ export async function serverStart(options: ServerOptions): Promise<RunningServer
     serveStatic(options.staticDir, url.pathname, res);
   });
 
+  async function readJsonInput(
+    req: IncomingMessage,
+    res: ServerResponse,
+  ): Promise<{ ok: true; input: unknown } | { ok: false }> {
+    const body = await readBody(req, maxBody);
+    if (body === 'too large') {
+      sendJson(res, 413, { error: { message: `request larger than ${maxBody} bytes` } });
+      return { ok: false };
+    }
+    try {
+      return { ok: true, input: body === '' ? {} : JSON.parse(body) };
+    } catch {
+      sendJson(res, 400, { error: { message: 'the request body is not valid JSON' } });
+      return { ok: false };
+    }
+  }
+
+  function sendFailure(res: ServerResponse, e: unknown, what: string): void {
+    const failure = options.describeError(e);
+    if (failure) {
+      sendJson(res, failure.status, { error: { field: failure.field, message: failure.message } });
+    } else {
+      log(`internal error in ${what}: ${(e as Error).stack ?? String(e)}`);
+      sendJson(res, 500, { error: { message: 'internal error; see the server log' } });
+    }
+  }
+
   async function handleApi(route: string, req: IncomingMessage, res: ServerResponse): Promise<void> {
-    const match = /^call\/([A-Za-z][A-Za-z0-9]*)$/.exec(route);
-    if (!match) {
+    const call = /^call\/([A-Za-z][A-Za-z0-9]*)$/.exec(route);
+    const jobStart = /^jobs\/start\/([A-Za-z][A-Za-z0-9]*)$/.exec(route);
+    const job = /^jobs\/([0-9a-f-]{36})(\/cancel)?$/.exec(route);
+    if (!call && !jobStart && !(job && options.jobs)) {
       sendJson(res, 404, { error: { message: `no API route "${route}"` } });
+      return;
+    }
+    if (job && options.jobs) {
+      const id = job[1] as string;
+      if (job[2] ? req.method !== 'POST' : req.method !== 'GET') {
+        sendJson(res, 405, { error: { message: job[2] ? 'cancel is POST' : 'job state is GET' } });
+        return;
+      }
+      const state = job[2] ? await options.jobs.cancel(id) : options.jobs.get(id);
+      if (state === undefined) sendJson(res, 404, { error: { message: 'no such job' } });
+      else sendJson(res, 200, { value: state });
       return;
     }
     if (req.method !== 'POST') {
       sendJson(res, 405, { error: { message: 'API calls are POST' } });
       return;
     }
-    const body = await readBody(req, maxBody);
-    if (body === 'too large') {
-      sendJson(res, 413, { error: { message: `request larger than ${maxBody} bytes` } });
-      return;
-    }
-    let input: unknown;
+    const body = await readJsonInput(req, res);
+    if (!body.ok) return;
+    const name = ((call ?? jobStart) as RegExpExecArray)[1] as string;
     try {
-      input = body === '' ? {} : JSON.parse(body);
-    } catch {
-      sendJson(res, 400, { error: { message: 'the request body is not valid JSON' } });
-      return;
-    }
-    try {
-      const value = await options.dispatch(match[1] as string, input);
-      sendJson(res, 200, { value });
-    } catch (e) {
-      const failure = options.describeError(e);
-      if (failure) {
-        sendJson(res, failure.status, { error: { field: failure.field, message: failure.message } });
+      if (jobStart) {
+        if (!options.jobs) throw new Error('jobs are not available');
+        sendJson(res, 200, { value: { job: options.jobs.start(name, body.input) } });
       } else {
-        log(`internal error in ${match[1]}: ${(e as Error).stack ?? String(e)}`);
-        sendJson(res, 500, { error: { message: 'internal error; see the server log' } });
+        sendJson(res, 200, { value: await options.dispatch(name, body.input) });
       }
+    } catch (e) {
+      sendFailure(res, e, name);
     }
   }
 

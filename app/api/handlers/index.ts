@@ -4,6 +4,7 @@ import { analyzeCorner } from './analyze';
 import { benchImportHandler, benchListHandler, benchShowHandler } from './bench';
 import { loadDemo } from './demo';
 import { storeExportHandler, storeImportHandler } from './exchange';
+import { settingGetHandler, settingListHandler, settingSetHandler } from './setting';
 import { setupDiffHandler, setupHistoryHandler, setupSaveHandler, setupShowHandler } from './setup';
 import { storeBackupHandler, storeCheckHandler } from './store';
 import { vehicleAdd, vehicleDeleteHandler, vehicleListHandler, vehicleShow } from './vehicle';
@@ -26,6 +27,9 @@ export const handlers = {
   storeImport: storeImportHandler,
   storeBackup: storeBackupHandler,
   storeCheck: storeCheckHandler,
+  settingGet: settingGetHandler,
+  settingSet: settingSetHandler,
+  settingList: settingListHandler,
   loadDemo,
 } satisfies {
   [N in HandlerName]: (

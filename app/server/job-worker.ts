@@ -1,0 +1,31 @@
+// One long API call in its own thread, on its own connection to the database (see jobs.ts).
+import { parentPort, workerData } from 'node:worker_threads';
+import { storeClose, storeOpen } from '../../db/store';
+import { apiCall } from '../api/call';
+import type { HandlerName } from '../api/contract';
+import { apiFailureOf } from './api-failure';
+import type { JobMessage } from './jobs';
+
+const { storePath, name, input } = workerData as { storePath: string; name: HandlerName; input: unknown };
+const post = (m: JobMessage) => parentPort?.postMessage(m);
+
+post({ kind: 'stage', stage: 'working' });
+const store = storeOpen(storePath);
+try {
+  const value = await apiCall(name, input, { store });
+  post({ kind: 'done', value });
+} catch (e) {
+  const failure = apiFailureOf(e);
+  post({
+    kind: 'failed',
+    error: failure
+      ? {
+          status: failure.status,
+          message: failure.message,
+          ...(failure.field !== undefined ? { field: failure.field } : {}),
+        }
+      : { status: 500, message: `internal error: ${(e as Error).message}` },
+  });
+} finally {
+  storeClose(store);
+}

@@ -1,0 +1,94 @@
+// The backend process: the API contract over HTTP on 127.0.0.1 behind a per-start token, and
+// the built renderer. `npm run serve` runs it for a browser; the desktop shell starts it with
+// --ready-line and opens its window on the address it reports.
+import { existsSync } from 'node:fs';
+import { homedir } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import { storeClose, storeOpen } from '../../db/store';
+import { storePathResolve } from '../../db/store-path';
+import { apiCall } from '../api/call';
+import { READY_PREFIX } from '../main/backend-process';
+import { apiFailureOf } from './api-failure';
+import { serverStart } from './http-server';
+import { JobRunner } from './jobs';
+import { handlerInputCheck, handlerNameCheck } from './policy';
+
+const USAGE = `npm run serve -- [--db FILE] [--port N]
+
+  Serves RideLedger to a browser on this machine only (127.0.0.1) and prints the address to
+  open; the address carries this start's access token. The database is --db FILE, else
+  $RIDELEDGER_DB, else the per-user application-data folder — the same one the desktop app and
+  the command use. Stop with Ctrl+C.`;
+
+async function serverMain(argv: string[]): Promise<void> {
+  const { values } = parseArgs({
+    args: argv,
+    options: {
+      db: { type: 'string' },
+      port: { type: 'string' },
+      'ready-line': { type: 'boolean' },
+      help: { type: 'boolean', short: 'h' },
+    },
+  });
+  if (values.help) {
+    console.log(USAGE);
+    return;
+  }
+  const port = values.port === undefined ? 0 : Number(values.port);
+  if (!Number.isInteger(port) || port < 0 || port > 65535) {
+    console.error(`rideledger serve: --port: got "${values.port}"; expected a port number from 0 to 65535`);
+    process.exitCode = 2;
+    return;
+  }
+  const path = storePathResolve(values.db, { platform: process.platform, env: process.env, home: homedir() });
+  const store = storeOpen(path);
+  if (store.created) console.error(`rideledger serve: made a new database at ${path}`);
+  const staticDir = fileURLToPath(new URL('../../dist/renderer/', import.meta.url));
+  if (!existsSync(staticDir))
+    console.error('rideledger serve: the renderer is not built; run `npm run build:renderer`');
+  const jobs = new JobRunner(path);
+  const server = await serverStart({
+    staticDir,
+    port,
+    dispatch: (name, input) => {
+      const handler = handlerNameCheck(name);
+      handlerInputCheck(handler, input);
+      return apiCall(handler, input, { store });
+    },
+    describeError: apiFailureOf,
+    jobs: {
+      start: (name, input) => {
+        const handler = handlerNameCheck(name);
+        handlerInputCheck(handler, input);
+        return jobs.start(handler, input);
+      },
+      get: (id) => jobs.get(id),
+      cancel: (id) => jobs.cancel(id),
+    },
+    log: (line) => console.error(line),
+  });
+  if (values['ready-line']) {
+    console.log(
+      READY_PREFIX +
+        JSON.stringify({ origin: server.origin, port: server.port, token: server.token, url: server.url }),
+    );
+  } else {
+    console.log(
+      `RideLedger is running. Open this address in a browser on this machine:\n\n  ${server.url}\n\nDatabase: ${path}\nStop with Ctrl+C.`,
+    );
+  }
+  const stop = async () => {
+    await jobs.closeAll();
+    await server.close();
+    storeClose(store);
+    process.exit(0);
+  };
+  process.on('SIGINT', () => void stop());
+  process.on('SIGTERM', () => void stop());
+}
+
+serverMain(process.argv.slice(2)).catch((e: unknown) => {
+  console.error(`rideledger serve: ${(e as Error).message}`);
+  process.exitCode = (e as { field?: unknown }).field !== undefined ? 2 : 1;
+});
