@@ -59,3 +59,61 @@ export async function apiCall<N extends HandlerName>(
     );
   return body.value as HandlerOutput<N>;
 }
+
+/** What a long call reports while it runs. */
+export type JobProgress = { elapsedMs: number; stage: string };
+
+type JobState =
+  | { state: 'running'; elapsedMs: number; stage: string }
+  | { state: 'done'; elapsedMs: number; value: unknown }
+  | { state: 'failed'; elapsedMs: number; error: { field?: string; message: string; status: number } }
+  | { state: 'cancelled'; elapsedMs: number };
+
+async function jobRequest(path: string, method: 'GET' | 'POST', body?: unknown): Promise<unknown> {
+  token ??= apiTokenTake();
+  if (!token)
+    throw new ApiCallError(
+      401,
+      'This page was opened without its access token: open the address RideLedger printed.',
+    );
+  const res = await fetch(`api/jobs/${path}`, {
+    method,
+    headers: { 'content-type': 'application/json', 'x-rideledger-token': token },
+    ...(body === undefined ? {} : { body: JSON.stringify(body) }),
+  });
+  const out = (await res.json().catch(() => ({}))) as {
+    value?: unknown;
+    error?: { message?: string; field?: string };
+  };
+  if (!res.ok)
+    throw new ApiCallError(
+      res.status,
+      out.error?.message ?? `request failed (${res.status})`,
+      out.error?.field,
+    );
+  return out.value;
+}
+
+/**
+ * Runs a handler as a job on the backend (its own thread, so a large import never stalls the
+ * app), polling its progress; aborting the signal cancels it, and a cancelled job stores nothing.
+ */
+export async function apiJob<N extends HandlerName>(
+  name: N,
+  input: HandlerInput<N>,
+  options: { onProgress?: (p: JobProgress) => void; signal?: AbortSignal } = {},
+): Promise<HandlerOutput<N>> {
+  const { job } = (await jobRequest(`start/${name}`, 'POST', input)) as { job: string };
+  for (;;) {
+    if (options.signal?.aborted) {
+      await jobRequest(`${job}/cancel`, 'POST');
+      throw new ApiCallError(499, 'Cancelled: nothing was stored.');
+    }
+    const s = (await jobRequest(job, 'GET')) as JobState;
+    if (s.state === 'done') return s.value as HandlerOutput<N>;
+    if (s.state === 'failed') throw new ApiCallError(s.error.status, s.error.message, s.error.field);
+    if (s.state === 'cancelled') throw new ApiCallError(499, 'Cancelled: nothing was stored.');
+    options.onProgress?.({ elapsedMs: s.elapsedMs, stage: s.stage });
+    await new Promise((r) => setTimeout(r, 150));
+  }
+}
