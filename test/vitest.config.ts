@@ -6,5 +6,7 @@ export default defineConfig({
     include: ['test/**/*.test.ts'],
     environment: 'node',
     testTimeout: 30_000,
+    hookTimeout: 60_000,
+    globalSetup: ['test/e2e/global-setup.ts'],
   },
 });

@@ -91,3 +91,22 @@ export async function browserOpen(
     },
   };
 }
+
+/**
+ * The Chromium for the end-to-end suite. Where there is none, the suite says so loudly, with
+ * how to install one, and is skipped — unless RIDELEDGER_REQUIRE_E2E=1 (CI sets it), where a
+ * missing browser fails the run.
+ */
+export function e2eChromium(): string | undefined {
+  const path = chromiumFind();
+  if (path) return path;
+  const message =
+    '\n*** The end-to-end tests need Chromium and found none (CHROMIUM_PATH, /usr/bin/chromium).\n' +
+    '*** Install it: sudo apt-get install chromium   (or set CHROMIUM_PATH to a Chromium or Chrome binary)\n' +
+    '*** The end-to-end suite is SKIPPED.\n';
+  if (process.env.RIDELEDGER_REQUIRE_E2E === '1') {
+    throw new Error(`${message}*** RIDELEDGER_REQUIRE_E2E=1: a missing browser fails the run.`);
+  }
+  console.warn(message);
+  return undefined;
+}
