@@ -516,7 +516,7 @@ export function SetupEditor() {
       </p>
       <div className="corners">
         {CORNER_POSITIONS.map((p) => (
-          <div className="corner-card" key={p} aria-label={CORNER_NAMES[p]} role="group">
+          <div className="corner-card" key={p} aria-label={`${CORNER_NAMES[p]} (${p})`} role="group">
             <h3>
               {CORNER_NAMES[p]} ({p})
             </h3>
