@@ -1,7 +1,20 @@
+import type { CornerFigures } from '../../../core/corner';
 import { cornerAnalyze, type CornerAnalysis } from '../../../core/corner-analysis';
 import { cornerFileParse } from '../../../core/corner-file';
 import type { HandlerInput, HandlerOutput } from '../contract';
 import type { AnalyzeReport } from '../schemas';
+
+/** A corner's headline figures as the contract reports them (the analyze report's first keys). */
+export function headlineFiguresOf(f: CornerFigures) {
+  return {
+    wheelRate: f.wheelRate,
+    rideRate: f.rideRate,
+    rideFrequencyHz: f.rideFrequencyHz,
+    wheelHopFrequencyHz: f.wheelHopFrequencyHz,
+    dampingRatio: { ...f.dampingRatio },
+    dampingClass: { ...f.dampingClass },
+  };
+}
 
 /** The contract's report of an analysis: DESIGN.md's keys only, SI. */
 export function analyzeReportOf(a: CornerAnalysis): AnalyzeReport {
@@ -17,12 +30,7 @@ export function analyzeReportOf(a: CornerAnalysis): AnalyzeReport {
   }
   if (a.modes.overdamped.length > 0) modes.overdamped = a.modes.overdamped.map((m) => ({ ...m }));
   const report: AnalyzeReport = {
-    wheelRate: f.wheelRate,
-    rideRate: f.rideRate,
-    rideFrequencyHz: f.rideFrequencyHz,
-    wheelHopFrequencyHz: f.wheelHopFrequencyHz,
-    dampingRatio: { ...f.dampingRatio },
-    dampingClass: { ...f.dampingClass },
+    ...headlineFiguresOf(f),
     modes,
     frf: a.frf.map((r) => ({ ...r })),
     step: { overshoot: a.step.overshoot, settlingTime: a.step.settlingTime },

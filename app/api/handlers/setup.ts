@@ -1,3 +1,4 @@
+import { headlineFiguresOf } from './analyze';
 import { CAUTION_TEXT } from '../../../core/caution';
 import { cornerQuarterCar, cornerRideFigures } from '../../../core/corner';
 import { InputError } from '../../../core/input-error';
@@ -82,15 +83,7 @@ export function setupShowHandler(
   const sheet = setupSheetRead(store.db, r);
   const figures = {} as HandlerOutput<'setupShow'>['figures'];
   for (const p of CORNER_POSITIONS) {
-    const f = cornerRideFigures(sheet.corners[p].analysis);
-    figures[p] = {
-      wheelRate: f.wheelRate,
-      rideRate: f.rideRate,
-      rideFrequencyHz: f.rideFrequencyHz,
-      wheelHopFrequencyHz: f.wheelHopFrequencyHz,
-      dampingRatio: { ...f.dampingRatio },
-      dampingClass: { ...f.dampingClass },
-    };
+    figures[p] = headlineFiguresOf(cornerRideFigures(sheet.corners[p].analysis));
   }
   return {
     vehicle: { id: v.id, name: v.name },
