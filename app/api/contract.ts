@@ -19,6 +19,7 @@ import {
   vehicleRefSchema,
   vehicleSchema,
 } from './store-schemas';
+import { valvingContract } from './valving-schemas';
 
 const vehicleNamed = z.strictObject({ id: z.number().int(), name: z.string() });
 
@@ -175,6 +176,8 @@ export const contract = {
       message: z.string(),
     }),
   },
+
+  ...valvingContract,
 } as const;
 
 export type Contract = typeof contract;

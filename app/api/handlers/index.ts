@@ -6,6 +6,12 @@ import { loadDemo } from './demo';
 import { storeExportHandler, storeImportHandler } from './exchange';
 import { setupDiffHandler, setupHistoryHandler, setupSaveHandler, setupShowHandler } from './setup';
 import { storeBackupHandler, storeCheckHandler } from './store';
+import {
+  setupCompareHandler,
+  valvingChooseHandler,
+  valvingMapHandler,
+  valvingPresetsHandler,
+} from './valving';
 import { vehicleAdd, vehicleDeleteHandler, vehicleListHandler, vehicleShow } from './vehicle';
 
 /** Every handler of the contract, by name; `satisfies` keeps the map and the contract in step. */
@@ -27,6 +33,10 @@ export const handlers = {
   storeBackup: storeBackupHandler,
   storeCheck: storeCheckHandler,
   loadDemo,
+  valvingPresets: valvingPresetsHandler,
+  valvingMap: valvingMapHandler,
+  valvingChoose: valvingChooseHandler,
+  setupCompare: setupCompareHandler,
 } satisfies {
   [N in HandlerName]: (
     input: HandlerParsedInput<N>,
