@@ -1,6 +1,5 @@
 import type { CornerInput } from './corner';
-import type { ValvingJob, ValvingScenario } from './valving-evaluate';
-import type { ValvingCurves } from './valving-map';
+import type { ValvingDamper, ValvingJob, ValvingScenario } from './valving-evaluate';
 import { valvingPresetOf, valvingScenarioEdit, type ValvingPreset } from './valving-presets';
 import { valvingTargetsEdit, type ValvingTargets } from './valving-targets';
 
@@ -38,7 +37,7 @@ export function valvingSettingsOf(presetName: string, edits: ValvingEdits = {}):
 
 /** The sweep of every cell of `curves` on every corner over `scenario`. */
 export function valvingJobOf(
-  curves: Pick<ValvingCurves, 'cells'>,
+  curves: { cells: readonly { damper: ValvingDamper }[] },
   corners: readonly { position: string; corner: CornerInput }[],
   scenario: ValvingScenario,
 ): ValvingJob {

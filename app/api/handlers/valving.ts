@@ -170,7 +170,8 @@ export async function valvingChooseHandler(
       settings.scenario,
     );
     const options = {
-      inThread: true,
+      // A kept pool belongs to a server whose thread must stay free to answer; a one-off call works here too.
+      inThread: ctx.valvingPool === undefined,
       ...(ctx.signal ? { signal: ctx.signal } : {}),
       onProgress: (done: number) => ctx.onProgress?.(before + done, total),
     };

@@ -145,10 +145,9 @@ function chooseHuman(out: ChooseOut, system: UnitSystem): string {
     }
     lines.push('');
   }
+  const shown = out.corners.flatMap((c) => [...c.best, ...(c.current ? [c.current] : [])]);
   if (
-    out.corners.some(
-      (c) => c.best.some((p) => p.source === 'interpolated') || c.current?.source === 'interpolated',
-    )
+    shown.some((p) => p.source === 'interpolated' || p.sensitivity.some((s) => s.source === 'interpolated'))
   )
     lines.push('* interpolated between measured neighbours, not measured: confirm on the bench', '');
   const balance = valvingBalanceLines(out.balance, 'Front/rear balance of the rank-1 picks');
