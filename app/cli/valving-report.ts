@@ -184,6 +184,17 @@ export function cornerListParse(values: readonly string[] | undefined): (typeof 
   return CORNER_POSITIONS.filter((p) => out.has(p));
 }
 
+/** The options with which choose and compare edit a preset (see valvingEditsFromOptions). */
+export const VALVING_EDIT_OPTIONS = {
+  preset: { type: 'string' },
+  target: { type: 'string', multiple: true },
+  weight: { type: 'string', multiple: true },
+  targets: { type: 'string' },
+  road: { type: 'string' },
+  speed: { type: 'string' },
+  units: { type: 'string' },
+} as const;
+
 /** What the targets options of choose and compare give: the API's edits of a preset. */
 export type ValvingEditsInput = {
   preset?: string;

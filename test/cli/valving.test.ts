@@ -20,21 +20,12 @@ describe('rideledger choose, compare and damping-map on the demo shop', () => {
   });
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
   const run = (...args: string[]) => cli(...args, '--db', db);
+  /** choose for FL with the demo damper, in this thread, plus `more`. */
+  const chooseFL = (...more: string[]) =>
+    run('choose', '--vehicle', COUPE, '--damper', 'MB-DA-1', '--corner', 'FL', '--threads', '0', ...more);
 
   it('chooses clicks for a corner, with why, one click either way, the current clicks and the cautions', async () => {
-    const r = await run(
-      'choose',
-      '--vehicle',
-      COUPE,
-      '--damper',
-      'MB-DA-1',
-      '--corner',
-      'FL',
-      '--preset',
-      'track-day',
-      '--threads',
-      '0',
-    );
+    const r = await chooseFL('--preset', 'track-day');
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/^Valving choice: Millbrook coupe #27@6/);
@@ -151,22 +142,7 @@ describe('rideledger choose, compare and damping-map on the demo shop', () => {
         weights: { reboundToBump: 0 },
       }),
     );
-    const r = await run(
-      'choose',
-      '--vehicle',
-      COUPE,
-      '--damper',
-      'MB-DA-1',
-      '--corner',
-      'FL',
-      '--targets',
-      file,
-      '--target',
-      'bumpLowSpeed=0.25..0.45',
-      '--threads',
-      '0',
-      '--json',
-    );
+    const r = await chooseFL('--targets', file, '--target', 'bumpLowSpeed=0.25..0.45', '--json');
     expect(r.stderr).toBe('');
     const out = JSON.parse(r.stdout);
     expect(out.preset.name).toBe('rally-stage');
@@ -223,6 +199,17 @@ describe('rideledger choose, compare and damping-map on the demo shop', () => {
     expect(json.cells).toHaveLength(25);
   });
 
+  /** The command line of choose for FL on the track-day preset, plus `more`. */
+  const chooseFlTrack = (...more: string[]) => [
+    'choose',
+    '--vehicle',
+    COUPE,
+    '--corner',
+    'FL',
+    '--preset',
+    'track-day',
+    ...more,
+  ];
   const bad: [string, string[], RegExp][] = [
     ['no preset', ['choose', '--vehicle', COUPE, '--corner', 'FL'], /choose needs --preset NAME/],
     [
@@ -240,31 +227,13 @@ describe('rideledger choose, compare and damping-map on the demo shop', () => {
       ['choose', '--vehicle', COUPE, '--corner', 'FX', '--preset', 'track-day'],
       /--corner: "FX" is not a corner/,
     ],
-    [
-      'a target that is none',
-      ['choose', '--vehicle', COUPE, '--corner', 'FL', '--preset', 'track-day', '--target', 'grip=1..2'],
-      /--target: "grip" is not a target/,
-    ],
+    ['a target that is none', chooseFlTrack('--target', 'grip=1..2'), /--target: "grip" is not a target/],
     [
       'a band in the wrong unit',
-      [
-        'choose',
-        '--vehicle',
-        COUPE,
-        '--corner',
-        'FL',
-        '--preset',
-        'track-day',
-        '--target',
-        'airborneTime=..5 mm',
-      ],
+      chooseFlTrack('--target', 'airborneTime=..5 mm'),
       /targets\.airborneTime: got "5 mm" \(a length\); expected a time/,
     ],
-    [
-      'a road class that is none',
-      ['choose', '--vehicle', COUPE, '--corner', 'FL', '--preset', 'track-day', '--road', 'Q'],
-      /scenario\.road\.class: got "Q"/,
-    ],
+    ['a road class that is none', chooseFlTrack('--road', 'Q'), /scenario\.road\.class: got "Q"/],
     [
       'a damper without bench runs',
       ['choose', '--vehicle', COUPE, '--corner', 'FR', '--preset', 'track-day'],
@@ -272,14 +241,10 @@ describe('rideledger choose, compare and damping-map on the demo shop', () => {
     ],
     [
       'a missing targets file',
-      ['choose', '--vehicle', COUPE, '--corner', 'FL', '--preset', 'track-day', '--targets', 'nope.json'],
+      chooseFlTrack('--targets', 'nope.json'),
       /nope\.json: cannot read the file: no such file/,
     ],
-    [
-      'threads in words',
-      ['choose', '--vehicle', COUPE, '--corner', 'FL', '--preset', 'track-day', '--threads', 'many'],
-      /--threads: "many" is not a whole number/,
-    ],
+    ['threads in words', chooseFlTrack('--threads', 'many'), /--threads: "many" is not a whole number/],
     ['compare without revisions', ['compare'], /compare needs one or two revisions/],
     [
       'compare of the first revision alone',

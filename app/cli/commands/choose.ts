@@ -15,6 +15,7 @@ import {
   valvingBalanceLines,
   valvingCautionLines,
   valvingCheckLines,
+  VALVING_EDIT_OPTIONS,
   valvingEditsFromOptions,
   valvingHeadlineText,
   valvingJudgedLines,
@@ -188,17 +189,11 @@ export async function chooseCommand(args: string[], io: CliIo): Promise<number> 
     vehicle: { type: 'string' },
     corner: { type: 'string', multiple: true },
     damper: { type: 'string' },
-    preset: { type: 'string' },
     presets: { type: 'boolean' },
     interpolate: { type: 'boolean' },
-    target: { type: 'string', multiple: true },
-    weight: { type: 'string', multiple: true },
-    targets: { type: 'string' },
-    road: { type: 'string' },
-    speed: { type: 'string' },
     best: { type: 'string' },
     threads: { type: 'string' },
-    units: { type: 'string' },
+    ...VALVING_EDIT_OPTIONS,
   });
   if (helpShown(values, undefined, CHOOSE_USAGE, io)) return EXIT_OK;
   const units = unitSystemParse(values.units);

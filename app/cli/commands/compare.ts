@@ -12,6 +12,7 @@ import {
   valvingBalanceLines,
   valvingCautionLines,
   valvingCheckLines,
+  VALVING_EDIT_OPTIONS,
   valvingEditsFromOptions,
   valvingHeadlineText,
   valvingJudgedLines,
@@ -94,13 +95,7 @@ function compareHuman(out: CompareOut, system: UnitSystem): string {
 export async function compareCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = commandArgsParse(args, {
     vehicle: { type: 'string' },
-    preset: { type: 'string' },
-    target: { type: 'string', multiple: true },
-    weight: { type: 'string', multiple: true },
-    targets: { type: 'string' },
-    road: { type: 'string' },
-    speed: { type: 'string' },
-    units: { type: 'string' },
+    ...VALVING_EDIT_OPTIONS,
   });
   if (helpShown(values, undefined, COMPARE_USAGE, io)) return EXIT_OK;
   const units = unitSystemParse(values.units);
