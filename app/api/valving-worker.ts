@@ -5,7 +5,7 @@ import type { ValvingWorkerReply, ValvingWorkerRequest } from './valving-pool';
 
 /**
  * A sweep worker of ValvingPool: it takes a job, then evaluates the ranges it is sent and
- * hands back each chunk. Started through valving-worker-boot.js.
+ * hands back each chunk. The pool runs it bundled into one script (valvingWorkerCode).
  */
 const port = parentPort;
 if (!port) throw new Error('valving-worker.ts runs as a worker thread (see valving-pool.ts)');
