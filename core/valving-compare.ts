@@ -26,6 +26,7 @@ export type ValvingCompareSide = {
   warnings: ModelWarning[];
 };
 
+/** One corner of the sheet: each revision's side and the change b − a. */
 export type ValvingCompareCorner = {
   position: CornerPosition;
   a: ValvingCompareSide;

@@ -50,6 +50,7 @@ export const VALVING_RANDOM_ROAD_REL_TOL = 1e-6;
 /** The scenario's two nonlinear events, built once: their labels are formatted with units. */
 export type ValvingEvents = { bump: RoadEvent; curb: RoadEvent };
 
+/** The scenario's (1−cos) bump and curb strike as road events (DESIGN.md, Nonlinear events), SI. */
 export function valvingEventsOf(scenario: ValvingScenario): ValvingEvents {
   return { bump: eventBump(scenario.bump, 'scenario.bump'), curb: eventCurb(scenario.curb, 'scenario.curb') };
 }

@@ -27,6 +27,7 @@ export type ValvingAxis = {
   measured: number[];
 };
 
+/** Where a cell's curves come from: a bench run at those clicks, or its measured neighbours. */
 export type ValvingCellSource = 'measured' | 'interpolated';
 
 /** The damper's curves at one click combination, at the damper shaft. */
@@ -69,6 +70,7 @@ export type ValvingCellFigures = {
   modes: { body: ValvingMode | null; wheelHop: ValvingMode | null; overdamped: number };
 };
 
+/** A cell of the map: its curves and its figures on the corner. */
 export type ValvingMapCell = ValvingCurveCell & { figures: ValvingCellFigures };
 
 /** The per-click damping map of a damper unit on one corner: a grid of cells, for a table or a heat map. */

@@ -4,6 +4,7 @@ import { quantityParse } from './units';
 import type { ValvingScenario } from './valving-evaluate';
 import type { ValvingSource, ValvingTarget, ValvingTargets } from './valving-targets';
 
+/** Our presets, by name: the starting points of the targets. */
 export const VALVING_PRESET_NAMES = [
   'road-comfort',
   'track-day',

@@ -193,6 +193,7 @@ export type ValvingPick = ValvingScore & {
   warnings: ModelWarning[];
 };
 
+/** One corner's ranking: how many were evaluated and met everything, the best few, the current clicks. */
 export type ValvingCornerRanking = {
   position: string;
   evaluated: number;
@@ -223,6 +224,7 @@ export type ValvingBalance = {
   flatRide: { low: number; high: number; met: boolean; source: ValvingSource };
 };
 
+/** The flat-ride band of rear ÷ front ride frequency, with its source. */
 export const VALVING_FLAT_RIDE = {
   low: 1.1,
   high: 1.2,
@@ -273,6 +275,7 @@ export function valvingBalanceOf(
   };
 }
 
+/** A sweep ranked: the objective in words, each corner's ranking and the balance. */
 export type ValvingRanking = {
   objective: string;
   corners: ValvingCornerRanking[];
