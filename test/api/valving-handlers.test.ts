@@ -42,7 +42,7 @@ describe('valving sweep across worker threads', () => {
   );
 
   it('equals the one-by-one evaluation exactly: workers only, workers with this thread, and a kept pool', async () => {
-    expect(valvingSweepSerial(job)).toEqual(oneByOne);
+    expect(valvingSweepSerial(job)).toStrictEqual(oneByOne);
     const progress: number[] = [];
     const workersOnly = await valvingSweepParallel(job, {
       threads: 2,
@@ -53,20 +53,20 @@ describe('valving sweep across worker threads', () => {
         progress.push(done);
       },
     });
-    expect(workersOnly).toEqual(oneByOne);
+    expect(workersOnly).toStrictEqual(oneByOne);
     expect(progress.at(-1)).toBe(72);
     expect(progress).toEqual([...progress].sort((a, b) => a - b));
     const pool = new ValvingPool(1);
     try {
-      expect(await pool.sweep(job, { chunkSize: 3 })).toEqual(oneByOne);
+      expect(await pool.sweep(job, { chunkSize: 3 })).toStrictEqual(oneByOne);
       // Again on the running pool, with another job in between.
       const small = valvingJobOf({ cells: job.cells.slice(0, 4) }, job.corners, job.scenario);
       const [first, second] = await Promise.all([
         pool.sweep(small, { inThread: false }),
         pool.sweep(job, { inThread: false }),
       ]);
-      expect(first).toEqual([oneByOne[0]?.slice(0, 4), oneByOne[1]?.slice(0, 4)]);
-      expect(second).toEqual(oneByOne);
+      expect(first).toStrictEqual([oneByOne[0]?.slice(0, 4), oneByOne[1]?.slice(0, 4)]);
+      expect(second).toStrictEqual(oneByOne);
     } finally {
       await pool.close();
     }
