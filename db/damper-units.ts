@@ -1,7 +1,7 @@
 import type Database from 'better-sqlite3';
 import { InputError } from '../core/input-error';
 import { nameKey } from '../core/text-field';
-import { damperUnitByKey, damperUnitById, damperUnitInsert } from './queries/damper-unit';
+import { damperUnitByKey, damperUnitById, damperUnitInsert, damperUnitList } from './queries/damper-unit';
 import type { DamperUnitRow } from './rows';
 
 /** A damper unit's own fields: type, serial number, notes. */
@@ -44,4 +44,18 @@ export function damperUnitEnsure(
     created_at: at,
   });
   return { row: damperUnitById(db, id) as DamperUnitRow, created: true };
+}
+
+/**
+ * The damper unit with this label (compared as `nameKey` does).
+ * @throws InputError naming `field`, with the units there are.
+ */
+export function damperUnitResolve(db: Database.Database, label: string, field = 'damper'): DamperUnitRow {
+  const found = damperUnitByKey(db, nameKey(label));
+  if (found) return found;
+  const all = damperUnitList(db);
+  throw new InputError(
+    field,
+    `no damper unit labelled "${label}"; ${all.length ? `units: ${all.map((d) => `"${d.label}"`).join(', ')}` : 'the library is empty (bench import FILE --damper LABEL)'}`,
+  );
 }

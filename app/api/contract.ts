@@ -19,6 +19,7 @@ import {
   vehicleRefSchema,
   vehicleSchema,
 } from './store-schemas';
+import { valvingContract } from './valving-schemas';
 
 /** Names of the desktop app's settings and drafts: `caution-acknowledged`, `draft:Millbrook coupe #27`. */
 const settingKeySchema = z
@@ -200,6 +201,8 @@ export const contract = {
       message: z.string(),
     }),
   },
+
+  ...valvingContract,
 } as const;
 
 export type Contract = typeof contract;

@@ -1,8 +1,12 @@
 import { InputError } from '../../core/input-error';
 import { analyzeCommand } from './commands/analyze';
 import { benchSimCommand } from './commands/bench-sim';
+import { benchSweepCommand } from './commands/bench-sweep';
 import { simulateCommand } from './commands/simulate';
 import { benchCommand } from './commands/bench';
+import { chooseCommand } from './commands/choose';
+import { compareCommand } from './commands/compare';
+import { dampingMapCommand } from './commands/damping-map';
 import { exportCommand, importCommand } from './commands/exchange';
 import { setupCommand } from './commands/setup';
 import { backupCommand, checkCommand, demoCommand } from './commands/store';
@@ -18,9 +22,16 @@ const COMMANDS: Record<string, Command> = {
     run: simulateCommand,
   },
   'bench-sim': { summary: 'benchmark of the bump simulation (simulations per second)', run: benchSimCommand },
+  'bench-sweep': {
+    summary: 'benchmark of the valving sweep (click combinations per second)',
+    run: benchSweepCommand,
+  },
   vehicle: { summary: 'add, list, show or delete vehicles', run: vehicleCommand },
   setup: { summary: 'save, show, history and diff of setup revisions', run: setupCommand },
   bench: { summary: 'import, list and show damper bench runs', run: benchCommand },
+  'damping-map': { summary: "a damper's ζ and modes per click on one corner", run: dampingMapCommand },
+  choose: { summary: 'rank every click combination of a damper against targets', run: chooseCommand },
+  compare: { summary: 'two revisions side by side: the track-day sheet', run: compareCommand },
   export: { summary: 'write a vehicle with its revisions and bench data to a bundle', run: exportCommand },
   import: { summary: 'read a bundle into the database', run: importCommand },
   backup: { summary: 'copy the whole database, checked', run: backupCommand },

@@ -1,4 +1,7 @@
 import { InputError } from '../../core/input-error';
+import { apiCall } from '../api/call';
+import type { ApiContext } from '../api/context';
+import { UsageError } from './cli-io';
 
 /** A revision as a command line names it: `VEHICLE@N`, or `VEHICLE` for the newest. */
 export type RevisionRefText = { vehicle: string; revision?: number };
@@ -22,4 +25,27 @@ export function revisionRefParse(text: string, field: string, vehicle?: string):
   if (!/^\d+$/.test(number) || Number(number) < 1)
     throw new InputError(field, `"${number}" after "@" is not a revision number (1, 2, …)`);
   return { vehicle: name || (vehicle as string), revision: Number(number) };
+}
+
+/**
+ * The two revisions a diff or a comparison names on the command line: both given, or one,
+ * which is then compared with its parent.
+ * @throws UsageError when the one revision given is the first.
+ */
+export async function revisionPairOf(
+  texts: readonly string[],
+  vehicle: string | undefined,
+  context: ApiContext,
+): Promise<{ a: RevisionRefText; b: RevisionRefText }> {
+  const a = revisionRefParse(texts[0] as string, 'a', vehicle);
+  if (texts[1] !== undefined) return { a, b: revisionRefParse(texts[1], 'b', vehicle) };
+  const shown = await apiCall('setupShow', { ...a }, context);
+  if (shown.revision.parent === null)
+    throw new UsageError(
+      `${shown.vehicle.name}@${shown.revision.number} is the first revision; give a second one to compare with`,
+    );
+  return {
+    a: { vehicle: a.vehicle, revision: shown.revision.parent },
+    b: { vehicle: a.vehicle, revision: shown.revision.number },
+  };
 }

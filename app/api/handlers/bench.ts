@@ -3,12 +3,13 @@ import type { BenchTableOptions } from '../../../core/bench-table';
 import { calendarDateParse } from '../../../core/calendar-date';
 import { clickSettingsFromText, clickSettingsParse } from '../../../core/click-settings';
 import { InputError } from '../../../core/input-error';
-import { nameFieldParse, nameKey, NOTES_MAX_LENGTH, textFieldParse } from '../../../core/text-field';
+import { nameFieldParse, NOTES_MAX_LENGTH, textFieldParse } from '../../../core/text-field';
 import { quantityParse, type QuantityKind } from '../../../core/units';
 import { benchImport } from '../../../db/bench-import';
 import { benchPointsDecode } from '../../../db/bench-points';
 import { benchRunById, benchRunListOfDamper } from '../../../db/queries/bench-run';
-import { damperUnitById, damperUnitByKey, damperUnitList } from '../../../db/queries/damper-unit';
+import { damperUnitById, damperUnitList } from '../../../db/queries/damper-unit';
+import { damperUnitResolve } from '../../../db/damper-units';
 import type { BenchRunSummaryRow } from '../../../db/rows';
 import { textFileRead } from '../../../db/text-file';
 import type { ApiContext } from '../context';
@@ -88,12 +89,7 @@ export function benchListHandler(
 ): HandlerOutput<'benchList'> {
   const all = damperUnitList(store.db);
   if (input.damper === undefined) return { dampers: all.map(damperViewOf), runs: [] };
-  const found = damperUnitByKey(store.db, nameKey(input.damper));
-  if (!found)
-    throw new InputError(
-      'damper',
-      `no damper unit labelled "${input.damper}"; ${all.length ? `units: ${all.map((d) => `"${d.label}"`).join(', ')}` : 'the library is empty (bench import FILE --damper LABEL)'}`,
-    );
+  const found = damperUnitResolve(store.db, input.damper);
   const runs: BenchRunSummaryRow[] = benchRunListOfDamper(store.db, found.id);
   return {
     dampers: all.filter((d) => d.id === found.id).map(damperViewOf),

@@ -7,6 +7,12 @@ import { storeExportHandler, storeImportHandler } from './exchange';
 import { settingGetHandler, settingListHandler, settingSetHandler } from './setting';
 import { setupDiffHandler, setupHistoryHandler, setupSaveHandler, setupShowHandler } from './setup';
 import { storeBackupHandler, storeCheckHandler } from './store';
+import {
+  setupCompareHandler,
+  valvingChooseHandler,
+  valvingMapHandler,
+  valvingPresetsHandler,
+} from './valving';
 import { vehicleAdd, vehicleDeleteHandler, vehicleListHandler, vehicleShow } from './vehicle';
 
 /** Every handler of the contract, by name; `satisfies` keeps the map and the contract in step. */
@@ -31,6 +37,10 @@ export const handlers = {
   settingSet: settingSetHandler,
   settingList: settingListHandler,
   loadDemo,
+  valvingPresets: valvingPresetsHandler,
+  valvingMap: valvingMapHandler,
+  valvingChoose: valvingChooseHandler,
+  setupCompare: setupCompareHandler,
 } satisfies {
   [N in HandlerName]: (
     input: HandlerParsedInput<N>,

@@ -10,7 +10,7 @@ import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
 import { commandArgsParse, helpShown, jsonText as json } from '../command-args';
 import { outputFileWrite } from '../output-file';
 import { readJsonFile } from '../read-json-file';
-import { revisionRefParse } from '../revision-ref';
+import { revisionPairOf, revisionRefParse } from '../revision-ref';
 import { withStore } from '../store-session';
 import { tableFormat, textWrap } from '../table';
 import { unitSystemParse } from './analyze';
@@ -260,22 +260,9 @@ export async function setupCommand(args: string[], io: CliIo): Promise<number> {
         throw new UsageError(
           `setup diff needs one or two revisions, e.g. "Coupe@3" "Coupe@5" (got ${positionals.length}); see rideledger setup --help`,
         );
-      const a = revisionRefParse(positionals[0] as string, 'a', values.vehicle);
       const out = await withStore(values.db, io, 'read', async (ctx) => {
-        let first = a;
-        let second =
-          positionals[1] === undefined ? undefined : revisionRefParse(positionals[1], 'b', values.vehicle);
-        if (!second) {
-          // One revision: compare it with its parent.
-          const shown = await apiCall('setupShow', { ...a, units }, ctx);
-          if (shown.revision.parent === null)
-            throw new UsageError(
-              `${shown.vehicle.name}@${shown.revision.number} is the first revision; give a second one to compare with`,
-            );
-          first = { vehicle: a.vehicle, revision: shown.revision.parent };
-          second = { vehicle: a.vehicle, revision: shown.revision.number };
-        }
-        return apiCall('setupDiff', { a: first, b: second, units }, ctx);
+        const pair = await revisionPairOf(positionals, values.vehicle, ctx);
+        return apiCall('setupDiff', { ...pair, units }, ctx);
       });
       io.stdout(values.json ? json(out) : diffHuman(out));
       return EXIT_OK;
