@@ -61,10 +61,10 @@ export async function apiCall<N extends HandlerName>(
 }
 
 /** What a long call reports while it runs. */
-export type JobProgress = { elapsedMs: number; stage: string };
+export type JobProgress = { elapsedMs: number; stage: string; done?: number; total?: number };
 
 type JobState =
-  | { state: 'running'; elapsedMs: number; stage: string }
+  | { state: 'running'; elapsedMs: number; stage: string; done?: number; total?: number }
   | { state: 'done'; elapsedMs: number; value: unknown }
   | { state: 'failed'; elapsedMs: number; error: { field?: string; message: string; status: number } }
   | { state: 'cancelled'; elapsedMs: number };
@@ -113,7 +113,11 @@ export async function apiJob<N extends HandlerName>(
     if (s.state === 'done') return s.value as HandlerOutput<N>;
     if (s.state === 'failed') throw new ApiCallError(s.error.status, s.error.message, s.error.field);
     if (s.state === 'cancelled') throw new ApiCallError(499, 'Cancelled: nothing was stored.');
-    options.onProgress?.({ elapsedMs: s.elapsedMs, stage: s.stage });
+    options.onProgress?.({
+      elapsedMs: s.elapsedMs,
+      stage: s.stage,
+      ...(s.done !== undefined && s.total !== undefined ? { done: s.done, total: s.total } : {}),
+    });
     await new Promise((r) => setTimeout(r, 150));
   }
 }

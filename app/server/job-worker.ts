@@ -11,8 +11,18 @@ const post = (m: JobMessage) => parentPort?.postMessage(m);
 
 post({ kind: 'stage', stage: 'working' });
 const store = storeOpen(storePath);
+let lastPost = 0;
 try {
-  const value = await apiCall(name, input, { store });
+  const value = await apiCall(name, input, {
+    store,
+    // Handlers that count their work (a valving sweep) report it; a few times a second is enough.
+    onProgress: (done, total) => {
+      const now = Date.now();
+      if (now - lastPost < 100 && done < total) return;
+      lastPost = now;
+      post({ kind: 'stage', stage: `${done} of ${total}`, done, total });
+    },
+  });
   post({ kind: 'done', value });
 } catch (e) {
   const failure = apiFailureOf(e);

@@ -4,7 +4,7 @@ import type { HandlerName } from '../api/contract';
 
 /** A long call (a large bench import, a backup) running in a worker thread so the server stays responsive. */
 export type JobState =
-  | { state: 'running'; elapsedMs: number; stage: string }
+  | { state: 'running'; elapsedMs: number; stage: string; done?: number; total?: number }
   | { state: 'done'; elapsedMs: number; value: unknown }
   | { state: 'failed'; elapsedMs: number; error: { field?: string; message: string; status: number } }
   | { state: 'cancelled'; elapsedMs: number };
@@ -12,7 +12,7 @@ export type JobState =
 type Job = { worker: Worker; started: number; state: JobState };
 
 export type JobMessage =
-  | { kind: 'stage'; stage: string }
+  | { kind: 'stage'; stage: string; done?: number; total?: number }
   | { kind: 'done'; value: unknown }
   | { kind: 'failed'; error: { field?: string; message: string; status: number } };
 
@@ -29,7 +29,7 @@ export class JobRunner {
   private readonly workerUrl: URL;
   private readonly storePath: string;
 
-  constructor(storePath: string, workerUrl = new URL('./job-worker.ts', import.meta.url)) {
+  constructor(storePath: string, workerUrl = new URL('./job-worker-boot.js', import.meta.url)) {
     this.storePath = storePath;
     this.workerUrl = workerUrl;
   }
@@ -38,7 +38,6 @@ export class JobRunner {
     const id = randomUUID();
     const worker = new Worker(this.workerUrl, {
       workerData: { storePath: this.storePath, name, input },
-      execArgv: ['--import', 'tsx'],
     });
     const job: Job = {
       worker,
@@ -53,9 +52,14 @@ export class JobRunner {
     };
     worker.on('message', (m: JobMessage) => {
       const elapsedMs = Date.now() - job.started;
-      if (m.kind === 'stage' && job.state.state === 'running')
-        job.state = { state: 'running', elapsedMs, stage: m.stage };
-      else if (m.kind === 'done') finish({ state: 'done', elapsedMs, value: m.value });
+      if (m.kind === 'stage' && job.state.state === 'running') {
+        job.state = {
+          state: 'running',
+          elapsedMs,
+          stage: m.stage,
+          ...(m.done !== undefined && m.total !== undefined ? { done: m.done, total: m.total } : {}),
+        };
+      } else if (m.kind === 'done') finish({ state: 'done', elapsedMs, value: m.value });
       else if (m.kind === 'failed') finish({ state: 'failed', elapsedMs, error: m.error });
     });
     worker.on('error', (e) =>
