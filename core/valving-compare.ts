@@ -13,8 +13,14 @@ import {
   valvingWarningsOf,
   type ValvingBalance,
   type ValvingHeadline,
+  type ValvingHeadlineKey,
 } from './valving-rank';
-import { valvingScoreOf, type ValvingScore, type ValvingTargets } from './valving-targets';
+import {
+  valvingScoreOf,
+  type ValvingScore,
+  type ValvingTargetKey,
+  type ValvingTargets,
+} from './valving-targets';
 import type { ModelWarning } from './warnings';
 
 /** One revision's corner as the track-day sheet shows it. */
@@ -77,4 +83,69 @@ export function valvingCompare(
     return { position: p, a: sa, b: sb, change: valvingHeadlineChange(sa.headline, sb.headline) };
   });
   return { corners, balance: { a: valvingBalanceOf(fa), b: valvingBalanceOf(fb) } };
+}
+
+/**
+ * Which way is better for each headline figure: lower (accelerations, tyre-load variation,
+ * travel, time in the air or on the bump stop), inside the target band of the named target
+ * (damping ratios, ride frequency), or neither (the body mode's own figures, which follow).
+ */
+export const VALVING_HEADLINE_SENSE: Record<
+  ValvingHeadlineKey,
+  { sense: 'lower' } | { sense: 'band'; target: ValvingTargetKey } | { sense: 'none' }
+> = {
+  rideFrequencyHz: { sense: 'band', target: 'rideFrequency' },
+  bodyFrequencyHz: { sense: 'none' },
+  bodyDampingRatio: { sense: 'none' },
+  zetaBump: { sense: 'band', target: 'bumpLowSpeed' },
+  zetaRebound: { sense: 'band', target: 'reboundLowSpeed' },
+  zetaBumpHighSpeed: { sense: 'band', target: 'highSpeed' },
+  zetaReboundHighSpeed: { sense: 'band', target: 'highSpeed' },
+  roadWeightedAccel: { sense: 'lower' },
+  roadTireLoad: { sense: 'lower' },
+  roadTravel: { sense: 'lower' },
+  bumpPeakAccel: { sense: 'lower' },
+  bumpAirborneTime: { sense: 'lower' },
+  curbPeakAccel: { sense: 'lower' },
+  curbAirborneTime: { sense: 'lower' },
+  bumpStopTime: { sense: 'lower' },
+};
+
+/** A change judged by its figure's sense; null where the figure has none or a value is missing. */
+export type ValvingVerdict = 'better' | 'worse' | 'same' | null;
+
+/** Changes smaller than this, relative, are no change. */
+const SAME_RELATIVE = 1e-6;
+
+function bandDistance(v: number, t: { low: number | null; high: number | null }): number {
+  if (t.low !== null && v < t.low) return t.low - v;
+  if (t.high !== null && v > t.high) return v - t.high;
+  return 0;
+}
+
+/**
+ * Whether going from `before` to `after` is better or worse for `key`: lower is better for
+ * the event and road figures; for a banded figure, nearer the target band is better and
+ * anywhere inside it is the same. Without the target (switched off), a banded figure has no verdict.
+ */
+export function valvingHeadlineVerdict(
+  key: ValvingHeadlineKey,
+  before: number | null,
+  after: number | null,
+  targets: ValvingTargets,
+): ValvingVerdict {
+  if (before === null || after === null) return null;
+  const s = VALVING_HEADLINE_SENSE[key];
+  const scale = Math.max(Math.abs(before), Math.abs(after), Number.MIN_VALUE);
+  if (s.sense === 'none') return null;
+  if (s.sense === 'lower') {
+    if (Math.abs(after - before) <= SAME_RELATIVE * scale) return 'same';
+    return after < before ? 'better' : 'worse';
+  }
+  const t = targets[s.target];
+  if (!t || (t.low === null && t.high === null)) return null;
+  const da = bandDistance(before, t);
+  const db = bandDistance(after, t);
+  if (Math.abs(db - da) <= SAME_RELATIVE * scale) return 'same';
+  return db < da ? 'better' : 'worse';
 }

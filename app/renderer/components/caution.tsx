@@ -21,9 +21,11 @@ export function CautionLine() {
 export function WarningList(props: {
   warnings: readonly { code: string; message: string; position?: string }[];
   label?: string;
+  /** Show the label as a heading above the list (where several lists stand together). */
+  titled?: boolean;
 }) {
   if (props.warnings.length === 0) return null;
-  return (
+  const list = (
     <ul className="warning-list" aria-label={props.label ?? 'Model warnings'}>
       {props.warnings.map((w, i) => (
         <li key={`${w.code}-${w.position ?? ''}-${i}`} data-warning={w.code}>
@@ -32,5 +34,12 @@ export function WarningList(props: {
         </li>
       ))}
     </ul>
+  );
+  if (!props.titled) return list;
+  return (
+    <div>
+      <h3>{props.label ?? 'Model warnings'}</h3>
+      {list}
+    </div>
   );
 }

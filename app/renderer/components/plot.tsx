@@ -163,7 +163,7 @@ export function LinePlot(props: {
               formatter={(v) => tickText(Number(v))}
               labelFormatter={(v) => `${props.xLabel}: ${tickText(Number(v))}`}
             />
-            <Legend verticalAlign="top" height={28} />
+            <Legend verticalAlign="top" wrapperStyle={{ paddingBottom: 10, lineHeight: '18px' }} />
             {data.map((d, i) => {
               const style = SERIES_STYLES[i % SERIES_STYLES.length] as (typeof SERIES_STYLES)[number];
               return (
