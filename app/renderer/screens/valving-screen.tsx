@@ -1,9 +1,581 @@
-/** Valving: not built yet. */
-export function ValvingScreen() {
+import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import { CAUTION_TEXT } from '../../../core/caution';
+import type { ClickSettings } from '../../../core/click-settings';
+import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
+import {
+  numberFormat,
+  quantityFromDisplay,
+  quantityToDisplay,
+  quantityUnitLabel,
+  type QuantityKind,
+  type UnitSystem,
+} from '../../../core/units';
+import { VALVING_HEADLINES } from '../../../core/valving-rank';
+import type { ValvingTargetKey } from '../../../core/valving-targets';
+import type { HandlerOutput } from '../../api/contract';
+import { apiCall, apiJob, ApiCallError, type JobProgress } from '../api-client';
+import { useApp, type RevisionPick } from '../app-context';
+import { CautionLine, WarningList } from '../components/caution';
+import { RevisionPicker } from '../components/revision-picker';
+import { ErrorLine, ProgressLine } from '../components/status';
+
+type Presets = HandlerOutput<'valvingPresets'>;
+type ValvingMap = HandlerOutput<'valvingMap'>;
+type Choice = HandlerOutput<'valvingChoose'>;
+type Pick = Choice['corners'][number]['best'][number];
+/** A target as the table shows it; `band` and `weight` say what the user changed (only that is sent). */
+type TargetEdit = {
+  low: string;
+  high: string;
+  weight: string;
+  off: boolean;
+  band: boolean;
+  weighted: boolean;
+};
+
+const ADJUSTER_WORDS: Record<string, string> = {
+  bump: 'bump',
+  rebound: 'rebound',
+  bumpHighSpeed: 'bump high',
+  reboundHighSpeed: 'rebound high',
+};
+
+export const clicksText = (c: ClickSettings) =>
+  Object.entries(c)
+    .map(([k, v]) => `${ADJUSTER_WORDS[k] ?? k} ${v}`)
+    .join(', ') || 'no clicks';
+
+/** The map's figures a heat map can show, with the target whose band marks them. */
+const MAP_FIGURES = [
+  { key: 'lowSpeedMean', label: 'ζ low speed, mean', target: 'lowSpeedMean' },
+  { key: 'bump', label: 'ζ bump, low speed', target: 'bumpLowSpeed' },
+  { key: 'rebound', label: 'ζ rebound, low speed', target: 'reboundLowSpeed' },
+  { key: 'bumpHighSpeed', label: 'ζ bump, high speed', target: 'highSpeed' },
+  { key: 'reboundHighSpeed', label: 'ζ rebound, high speed', target: 'highSpeed' },
+] as const;
+
+function bandOf(t: { low: number | null; high: number | null } | undefined, v: number): boolean | null {
+  if (!t || (t.low === null && t.high === null)) return null;
+  return (t.low === null || v >= t.low) && (t.high === null || v <= t.high);
+}
+
+/** A target value in the unit system's display unit, or the plain number. */
+const shown = (v: number | null, kind: string | null, units: UnitSystem) =>
+  v === null
+    ? ''
+    : String(Number((kind ? quantityToDisplay(v, kind as QuantityKind, units) : v).toPrecision(4)));
+
+function HeatMap(props: {
+  map: ValvingMap;
+  figure: (typeof MAP_FIGURES)[number];
+  band?: { low: number | null; high: number | null };
+}) {
+  const { map, figure } = props;
+  const [rows, cols] = map.axes;
+  const values = map.cells.map((c) => c.figures.dampingRatio[figure.key]);
+  const lo = Math.min(...values);
+  const hi = Math.max(...values);
+  if (!rows) return null;
+  const cellAt = (i: number, j: number) => map.cells[cols ? i * cols.clicks.length + j : i];
+  const shade = (v: number) => {
+    // Light to mid blue with black text throughout: the number is printed, the shade only helps.
+    const t = hi > lo ? (v - lo) / (hi - lo) : 0.5;
+    return `hsl(215 70% ${96 - 38 * t}%)`;
+  };
   return (
-    <section>
+    <table
+      className="figures heat-map"
+      aria-label={`${figure.label} over the clicks at ${map.position}`}
+      data-testid="heat-map"
+    >
+      <caption style={{ textAlign: 'left', fontWeight: 700 }}>
+        {figure.label} at {map.position} with {map.damper}: rows {ADJUSTER_WORDS[rows.adjuster]} clicks
+        {cols ? `, columns ${ADJUSTER_WORDS[cols.adjuster]} clicks` : ''}. ✓ inside the target band; i
+        interpolated.
+      </caption>
+      <thead>
+        <tr>
+          <th scope="col">
+            {ADJUSTER_WORDS[rows.adjuster]} \ {cols ? ADJUSTER_WORDS[cols.adjuster] : ''}
+          </th>
+          {(cols?.clicks ?? [0]).map((c) => (
+            <th scope="col" key={c}>
+              {cols ? c : ''}
+            </th>
+          ))}
+        </tr>
+      </thead>
+      <tbody>
+        {rows.clicks.map((r, i) => (
+          <tr key={r}>
+            <th scope="row">{r}</th>
+            {(cols?.clicks ?? [0]).map((_, j) => {
+              const cell = cellAt(i, j);
+              if (!cell) return <td key={j}>—</td>;
+              const v = cell.figures.dampingRatio[figure.key];
+              const inBand = bandOf(props.band, v);
+              return (
+                <td
+                  key={j}
+                  style={{ background: shade(v), textAlign: 'center' }}
+                  title={clicksText(cell.clicks)}
+                >
+                  {numberFormat(v, 2)}
+                  {inBand ? ' ✓' : ''}
+                  {cell.source === 'interpolated' ? ' i' : ''}
+                </td>
+              );
+            })}
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+function PickDetail(props: { pick: Pick; units: UnitSystem; title: string }) {
+  const p = props.pick;
+  return (
+    <details open={p.rank === 1}>
+      <summary>
+        <strong>{props.title}</strong>: {clicksText(p.clicks)} — meets {p.met} of {p.met + p.missed} checks,
+        score {numberFormat(p.score, 3)}
+        {p.source === 'interpolated' ? ' (interpolated clicks, not measured)' : ''}
+      </summary>
+      <table className="figures" aria-label={`Checks of ${clicksText(p.clicks)}`}>
+        <thead>
+          <tr>
+            <th scope="col">Figure</th>
+            <th scope="col">Value</th>
+            <th scope="col">Band</th>
+            <th scope="col">Meets?</th>
+          </tr>
+        </thead>
+        <tbody>
+          {p.checks.map((c, i) => (
+            <tr key={i}>
+              <td>{c.figure}</td>
+              <td>{numberFormat(c.value, 3)}</td>
+              <td>
+                {c.low === null ? '…' : numberFormat(c.low, 3)} to{' '}
+                {c.high === null ? '…' : numberFormat(c.high, 3)}
+              </td>
+              <td className={c.met ? 'better' : 'worse'}>
+                {c.met ? '✓ yes' : `✗ misses by ${numberFormat(Math.abs(c.miss), 3)}`}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {p.sensitivity.length > 0 ? (
+        <table className="figures" aria-label={`One click either way from ${clicksText(p.clicks)}`}>
+          <thead>
+            <tr>
+              <th scope="col">One step</th>
+              <th scope="col">Clicks</th>
+              <th scope="col">Score</th>
+              <th scope="col">ζ bump change</th>
+              <th scope="col">ζ rebound change</th>
+              <th scope="col">Bump peak accel. change</th>
+            </tr>
+          </thead>
+          <tbody>
+            {p.sensitivity.map((s, i) => (
+              <tr key={i}>
+                <td>
+                  {ADJUSTER_WORDS[s.adjuster]} {s.direction > 0 ? '+' : '−'}
+                </td>
+                <td>{s.available ? clicksText(s.clicks) : 'beyond the measured range'}</td>
+                <td>{s.score === null ? '—' : numberFormat(s.score, 3)}</td>
+                <td>{s.change?.zetaBump === null || !s.change ? '—' : numberFormat(s.change.zetaBump, 3)}</td>
+                <td>
+                  {s.change?.zetaRebound === null || !s.change ? '—' : numberFormat(s.change.zetaRebound, 3)}
+                </td>
+                <td>
+                  {s.change?.bumpPeakAccel === null || !s.change
+                    ? '—'
+                    : `${numberFormat(s.change.bumpPeakAccel, 2)} m/s²`}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ) : null}
+      <WarningList warnings={p.warnings} label={`Model warnings for ${clicksText(p.clicks)}`} />
+    </details>
+  );
+}
+
+/**
+ * Choosing valving: a damper's per-click damping map on a corner (a heat map over the click
+ * grid), and the click combinations ranked for each corner against a preset's editable
+ * targets — the sweep runs on the backend's worker threads with progress and a way to stop it.
+ */
+export function ValvingScreen() {
+  const app = useApp();
+  const id = useId();
+  const [pick, setPick] = useState<RevisionPick | null>(app.revision ?? null);
+  const [presets, setPresets] = useState<Presets | null>(null);
+  const [preset, setPreset] = useState('track-day');
+  const [edits, setEdits] = useState<Record<string, TargetEdit>>({});
+  const [corners, setCorners] = useState<CornerPosition[]>([...CORNER_POSITIONS]);
+  const [dampers, setDampers] = useState<string[]>([]);
+  const [damper, setDamper] = useState('');
+  const [interpolate, setInterpolate] = useState(false);
+  const [mapCorner, setMapCorner] = useState<CornerPosition>('FL');
+  const [mapFigure, setMapFigure] = useState<(typeof MAP_FIGURES)[number]['key']>('lowSpeedMean');
+  const [map, setMap] = useState<ValvingMap | null>(null);
+  const [choice, setChoice] = useState<Choice | null>(null);
+  const [progress, setProgress] = useState<JobProgress | null>(null);
+  const [error, setError] = useState<unknown>(null);
+  const stop = useRef<AbortController | null>(null);
+
+  useEffect(() => {
+    apiCall('valvingPresets', {}).then(setPresets, setError);
+    apiCall('benchList', {}).then((r) => {
+      const measured = r.dampers.filter((d) => d.runCount > 0).map((d) => d.label);
+      setDampers(measured);
+      // Start from a unit that has bench data; a corner's recorded unit may have none yet.
+      setDamper((d) => d || measured[0] || '');
+    }, setError);
+  }, [app.dataVersion]);
+
+  const presetData = presets?.presets.find((p) => p.name === preset);
+  // The preset's targets, shown in the unit system; edits start from them.
+  useEffect(() => {
+    if (!presetData || !presets) return;
+    const next: Record<string, TargetEdit> = {};
+    for (const t of presets.targets) {
+      const b = presetData.targets[t.key];
+      next[t.key] = b
+        ? {
+            low: shown(b.low, t.kind, app.units),
+            high: shown(b.high, t.kind, app.units),
+            weight: String(b.weight),
+            off: false,
+            band: false,
+            weighted: false,
+          }
+        : { low: '', high: '', weight: '1', off: true, band: false, weighted: false };
+    }
+    setEdits(next);
+  }, [presetData, presets, app.units]);
+
+  useEffect(() => {
+    if (!pick) return;
+    setMap(null);
+    apiCall('valvingMap', {
+      vehicle: pick.vehicle,
+      revision: pick.revision,
+      corner: mapCorner,
+      interpolate,
+      ...(damper ? { damper } : {}),
+    }).then(setMap, setError);
+  }, [pick, mapCorner, damper, interpolate, app.dataVersion]);
+
+  const targetsEdit = useMemo(() => {
+    const targets: Record<string, unknown> = {};
+    for (const t of presets?.targets ?? []) {
+      const e = edits[t.key];
+      if (!e) continue;
+      const inPreset = presetData?.targets[t.key] !== undefined;
+      if (e.off) {
+        if (inPreset) targets[t.key] = 'off';
+        continue;
+      }
+      // Only what the user changed goes: an unchanged target keeps the preset's band, scale and source.
+      if (inPreset && !e.band && !e.weighted) continue;
+      const num = (s: string) => {
+        if (s.trim() === '') return null;
+        const v = Number(s);
+        if (!Number.isFinite(v))
+          throw new ApiCallError(400, `${t.label}: "${s}" is not a number`, `targets.${t.key}`);
+        return t.kind ? quantityFromDisplay(v, t.kind as QuantityKind, app.units) : v;
+      };
+      targets[t.key] = {
+        ...(e.band || !inPreset ? { low: num(e.low), high: num(e.high) } : {}),
+        weight: Number(e.weight),
+      };
+    }
+    return targets;
+  }, [edits, presets, presetData, app.units]);
+
+  const run = async () => {
+    if (!pick) return;
+    setError(null);
+    setChoice(null);
+    const controller = new AbortController();
+    stop.current = controller;
+    setProgress({ elapsedMs: 0, stage: 'starting' });
+    try {
+      const r = await apiJob(
+        'valvingChoose',
+        {
+          vehicle: pick.vehicle,
+          revision: pick.revision,
+          corners,
+          preset,
+          interpolate,
+          targets: targetsEdit,
+          best: 3,
+          ...(damper ? { damper } : {}),
+        },
+        { onProgress: setProgress, signal: controller.signal },
+      );
+      setChoice(r);
+    } catch (e) {
+      setError(e);
+    } finally {
+      setProgress(null);
+      stop.current = null;
+    }
+  };
+
+  const figure = MAP_FIGURES.find((f) => f.key === mapFigure) ?? MAP_FIGURES[0];
+  const band =
+    presetData && !edits[figure.target]?.off
+      ? presetData.targets[figure.target as ValvingTargetKey]
+      : undefined;
+
+  return (
+    <section aria-label="Choose valving">
       <h2>Valving</h2>
-      <p>This screen is not built yet.</p>
+      <CautionLine />
+      <RevisionPicker
+        label="Setup to choose for"
+        actionLabel="Use this setup"
+        onPick={setPick}
+        initial={pick}
+      />
+      {pick ? (
+        <p>
+          Choosing for{' '}
+          <strong>
+            {pick.vehicle} #{pick.revision}
+          </strong>
+          .
+        </p>
+      ) : (
+        <p>Pick the setup whose corners to choose clicks for.</p>
+      )}
+      <div className="toolbar">
+        <label htmlFor={`${id}-damper`}>Damper</label>
+        <select id={`${id}-damper`} value={damper} onChange={(e) => setDamper(e.target.value)}>
+          <option value="">each corner’s recorded unit</option>
+          {dampers.map((d) => (
+            <option key={d} value={d}>
+              {d}
+            </option>
+          ))}
+        </select>
+        <label>
+          <input type="checkbox" checked={interpolate} onChange={(e) => setInterpolate(e.target.checked)} />{' '}
+          interpolate clicks between measured ones
+        </label>
+      </div>
+      <h3>Damping map</h3>
+      <div className="toolbar">
+        <fieldset className="toolbar" style={{ border: 0, padding: 0, margin: 0 }}>
+          <legend style={{ float: 'left', marginRight: 6 }}>Corner</legend>
+          {CORNER_POSITIONS.map((p) => (
+            <label key={p}>
+              <input
+                type="radio"
+                name={`${id}-map-corner`}
+                checked={mapCorner === p}
+                onChange={() => setMapCorner(p)}
+              />{' '}
+              {p}
+            </label>
+          ))}
+        </fieldset>
+        <label htmlFor={`${id}-figure`}>Figure</label>
+        <select
+          id={`${id}-figure`}
+          value={mapFigure}
+          onChange={(e) => setMapFigure(e.target.value as typeof mapFigure)}
+        >
+          {MAP_FIGURES.map((f) => (
+            <option key={f.key} value={f.key}>
+              {f.label}
+            </option>
+          ))}
+        </select>
+      </div>
+      {map ? (
+        <>
+          <HeatMap map={map} figure={figure} {...(band ? { band } : {})} />
+          {map.notes.length > 0 ? <p className="muted">{map.notes.join(' ')}</p> : null}
+        </>
+      ) : pick ? (
+        <p>Loading the map…</p>
+      ) : null}
+      <h3>Targets</h3>
+      <div className="toolbar">
+        <label htmlFor={`${id}-preset`}>Preset</label>
+        <select id={`${id}-preset`} value={preset} onChange={(e) => setPreset(e.target.value)}>
+          {(presets?.presets ?? []).map((p) => (
+            <option key={p.name} value={p.name}>
+              {p.title}
+            </option>
+          ))}
+        </select>
+        {presetData ? <span className="muted">{presetData.use}</span> : null}
+      </div>
+      <table className="figures" aria-label="Targets">
+        <thead>
+          <tr>
+            <th scope="col">Target</th>
+            <th scope="col">Low</th>
+            <th scope="col">High</th>
+            <th scope="col">Unit</th>
+            <th scope="col">Weight</th>
+            <th scope="col">Off</th>
+            <th scope="col">Source</th>
+          </tr>
+        </thead>
+        <tbody>
+          {(presets?.targets ?? []).map((t) => {
+            const e = edits[t.key] ?? {
+              low: '',
+              high: '',
+              weight: '1',
+              off: true,
+              band: false,
+              weighted: false,
+            };
+            const set = (patch: Partial<TargetEdit>) => setEdits({ ...edits, [t.key]: { ...e, ...patch } });
+            const source = presetData?.targets[t.key]?.source;
+            return (
+              <tr key={t.key}>
+                <th scope="row" style={{ textAlign: 'left' }}>
+                  {t.label}
+                </th>
+                <td>
+                  <input
+                    aria-label={`${t.label}, low`}
+                    size={7}
+                    value={e.low}
+                    disabled={e.off}
+                    onChange={(x) => set({ low: x.target.value, band: true })}
+                  />
+                </td>
+                <td>
+                  <input
+                    aria-label={`${t.label}, high`}
+                    size={7}
+                    value={e.high}
+                    disabled={e.off}
+                    onChange={(x) => set({ high: x.target.value, band: true })}
+                  />
+                </td>
+                <td>{t.kind ? quantityUnitLabel(t.kind as QuantityKind, app.units) : ''}</td>
+                <td>
+                  <input
+                    aria-label={`${t.label}, weight`}
+                    size={4}
+                    value={e.weight}
+                    disabled={e.off}
+                    onChange={(x) => set({ weight: x.target.value, weighted: true })}
+                  />
+                </td>
+                <td>
+                  <input
+                    type="checkbox"
+                    aria-label={`${t.label}, off`}
+                    checked={e.off}
+                    onChange={(x) => set({ off: x.target.checked })}
+                  />
+                </td>
+                <td className="muted" style={{ textAlign: 'left', fontSize: 13 }}>
+                  {source ? `[${source.tag}] ${source.text}` : '—'}
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      <fieldset className="toolbar">
+        <legend>Corners to choose for</legend>
+        {CORNER_POSITIONS.map((p) => (
+          <label key={p}>
+            <input
+              type="checkbox"
+              checked={corners.includes(p)}
+              onChange={(e) =>
+                setCorners(
+                  e.target.checked
+                    ? CORNER_POSITIONS.filter((x) => x === p || corners.includes(x))
+                    : corners.filter((x) => x !== p),
+                )
+              }
+            />{' '}
+            {p}
+          </label>
+        ))}
+        <button
+          type="button"
+          className="primary"
+          disabled={!pick || corners.length === 0 || progress !== null}
+          onClick={() => void run()}
+        >
+          Find the best clicks
+        </button>
+      </fieldset>
+      {progress ? (
+        <ProgressLine
+          label={
+            progress.total
+              ? `Evaluating ${progress.done} of ${progress.total} combinations`
+              : 'Starting the sweep…'
+          }
+          {...(progress.total ? { fraction: (progress.done ?? 0) / progress.total } : {})}
+          onCancel={() => stop.current?.abort()}
+        />
+      ) : null}
+      <ErrorLine error={error} />
+      {choice ? (
+        <section aria-label="Recommendation" data-testid="recommendation">
+          <h3>
+            Starting points for testing on the car — {choice.vehicle.name} #{choice.revision},{' '}
+            {choice.preset.title}
+          </h3>
+          <div className="caution-line" role="note" aria-label="Caution beside the recommendation">
+            <strong>Caution:</strong> {CAUTION_TEXT} {choice.valvingCaution}
+          </div>
+          <p className="muted">
+            {choice.combinations} combinations evaluated. {choice.objective}
+          </p>
+          {choice.corners.map((c) => (
+            <div key={c.position} className="corner-result">
+              <h3>
+                {c.position} with {c.damper}: {c.meetingAll} combination{c.meetingAll === 1 ? '' : 's'} meet
+                every target
+              </h3>
+              {c.best.map((b) => (
+                <PickDetail key={b.cell} pick={b} units={app.units} title={`#${b.rank}`} />
+              ))}
+              {c.current ? (
+                <PickDetail
+                  pick={c.current}
+                  units={app.units}
+                  title={`As set now (rank ${c.current.rank} of ${c.evaluated})`}
+                />
+              ) : null}
+            </div>
+          ))}
+          {choice.balance ? (
+            <p className="status">
+              Front/rear balance of the best picks: ride frequency rear ÷ front{' '}
+              {numberFormat(choice.balance.ratio.rideFrequency, 2)} (
+              {choice.balance.flatRide.met ? 'within' : 'outside'} the usual flat-ride{' '}
+              {numberFormat(choice.balance.flatRide.low, 2)}–{numberFormat(choice.balance.flatRide.high, 2)});
+              ζ low-speed mean rear ÷ front {numberFormat(choice.balance.ratio.lowSpeedMean, 2)}.{' '}
+              {VALVING_HEADLINES.rideFrequencyHz.label} does not change with clicks.
+            </p>
+          ) : null}
+        </section>
+      ) : null}
     </section>
   );
 }
