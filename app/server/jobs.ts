@@ -29,7 +29,7 @@ export class JobRunner {
   private readonly workerUrl: URL;
   private readonly storePath: string;
 
-  constructor(storePath: string, workerUrl = new URL('./job-worker.ts', import.meta.url)) {
+  constructor(storePath: string, workerUrl = new URL('./job-worker-boot.js', import.meta.url)) {
     this.storePath = storePath;
     this.workerUrl = workerUrl;
   }
@@ -38,7 +38,6 @@ export class JobRunner {
     const id = randomUUID();
     const worker = new Worker(this.workerUrl, {
       workerData: { storePath: this.storePath, name, input },
-      execArgv: ['--import', 'tsx'],
     });
     const job: Job = {
       worker,

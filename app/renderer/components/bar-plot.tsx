@@ -1,0 +1,140 @@
+import {
+  Bar,
+  BarChart,
+  CartesianGrid,
+  LabelList,
+  Legend,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from 'recharts';
+import { csvFormat } from '../csv';
+import { PlotFrame, seriesStyle, tickText } from './plot-frame';
+
+/** The smallest 1, 2 or 5 × 10ⁿ at or above `v` (1 for nothing to show). */
+function niceCeiling(v: number): number {
+  if (!(v > 0) || !Number.isFinite(v)) return 1;
+  const e = 10 ** Math.floor(Math.log10(v));
+  return ([1, 2, 5, 10].find((m) => m * e >= v) ?? 10) * e;
+}
+
+/** One group of bars: a value per category (NaN where there is none). */
+export type BarSeries = { name: string; values: readonly number[] };
+
+/** The bars as CSV: a category column, then one column a series. */
+export function barCsv(
+  categoryLabel: string,
+  yLabel: string,
+  categories: readonly string[],
+  series: readonly BarSeries[],
+): string {
+  const rows: (string | number)[][] = [[categoryLabel, ...series.map((s) => `${s.name} (${yLabel})`)]];
+  categories.forEach((c, i) => rows.push([c, ...series.map((s) => s.values[i] ?? NaN)]));
+  return csvFormat(rows);
+}
+
+/**
+ * Hatchings told apart without colour: the first series is solid, the others carry diagonal,
+ * crossed or dotted fills over their colour.
+ */
+function fillPattern(id: string, i: number, colour: string) {
+  const kind = i % 4;
+  if (kind === 0) return null;
+  return (
+    <pattern key={i} id={`${id}-fill-${i}`} patternUnits="userSpaceOnUse" width={8} height={8}>
+      <rect width={8} height={8} fill={colour} opacity={0.35} />
+      {kind === 1 ? <path d="M0,8 L8,0" stroke={colour} strokeWidth={2.5} /> : null}
+      {kind === 2 ? <path d="M0,0 L8,8 M0,8 L8,0" stroke={colour} strokeWidth={1.8} /> : null}
+      {kind === 3 ? <circle cx={4} cy={4} r={2} fill={colour} /> : null}
+    </pattern>
+  );
+}
+
+/**
+ * A bar chart of a few figures per category (a corner) with a labelled value axis, each bar
+ * labelled with its value, series told apart by fill pattern as well as colour, and the same
+ * Save PNG / Save data (CSV) buttons as the line plots.
+ */
+export function BarPlot(props: {
+  id: string;
+  title: string;
+  categoryLabel: string;
+  yLabel: string;
+  categories: readonly string[];
+  series: readonly BarSeries[];
+  /** Text of a bar's value label. */
+  valueText?: (v: number) => string;
+  height?: number;
+}) {
+  const data = props.categories.map((category, i) => {
+    const row: Record<string, string | number | null> = { category };
+    props.series.forEach((s, k) => {
+      const v = s.values[i];
+      row[`s${k}`] = v !== undefined && Number.isFinite(v) ? v : null;
+    });
+    return row;
+  });
+  const valueText = props.valueText ?? tickText;
+  return (
+    <PlotFrame
+      id={props.id}
+      title={props.title}
+      height={props.height ?? 260}
+      csv={() => barCsv(props.categoryLabel, props.yLabel, props.categories, props.series)}
+    >
+      <ResponsiveContainer width="100%" height="100%">
+        <BarChart data={data} margin={{ top: 18, right: 24, bottom: 28, left: 16 }}>
+          <defs>{props.series.map((_, k) => fillPattern(props.id, k, seriesStyle(k).colour))}</defs>
+          <CartesianGrid stroke="#d0d0d0" strokeDasharray="2 4" vertical={false} />
+          <XAxis
+            dataKey="category"
+            type="category"
+            label={{ value: props.categoryLabel, position: 'insideBottom', offset: -16, fill: '#111' }}
+            stroke="#222"
+          />
+          <YAxis
+            type="number"
+            // Headroom above the tallest bar for its value label.
+            domain={[0, (max: number) => niceCeiling(max * 1.2)]}
+            tickFormatter={tickText}
+            width={72}
+            label={{
+              value: props.yLabel,
+              angle: -90,
+              position: 'insideLeft',
+              offset: 0,
+              fill: '#111',
+              style: { textAnchor: 'middle' },
+            }}
+            stroke="#222"
+          />
+          <Tooltip formatter={(v) => valueText(Number(v))} />
+          <Legend verticalAlign="top" />
+          {props.series.map((s, k) => {
+            const style = seriesStyle(k);
+            return (
+              <Bar
+                key={s.name}
+                name={s.name}
+                dataKey={`s${k}`}
+                fill={k % 4 === 0 ? style.colour : `url(#${props.id}-fill-${k})`}
+                stroke={style.colour}
+                strokeWidth={1.5}
+                isAnimationActive={false}
+              >
+                <LabelList
+                  dataKey={`s${k}`}
+                  position="top"
+                  fill="#111"
+                  fontSize={12}
+                  formatter={(v) => (typeof v === 'number' ? valueText(v) : '')}
+                />
+              </Bar>
+            );
+          })}
+        </BarChart>
+      </ResponsiveContainer>
+    </PlotFrame>
+  );
+}
