@@ -21,8 +21,7 @@ import {
   type UnitSystem,
 } from '../../core/units';
 import type { ModelWarning } from '../../core/warnings';
-import type { BarSeries } from './components/bar-plot';
-import type { PlotSeries } from './components/plot';
+import type { BarSeries, PlotSeries } from './components/plot-data';
 import { quantityDisplayFactor, quantityFieldConvert, quantityFieldValue } from './quantity-field';
 
 /** What the user picks for the road and the bump, as typed (numbers in the unit system's units). */

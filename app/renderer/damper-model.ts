@@ -11,7 +11,7 @@ import { damperDirectionForce, damperForce, type DamperDirectionCurve } from '..
 import { InputError } from '../../core/input-error';
 import { numberParse, quantityParse, quantityUnitLabel, type UnitSystem } from '../../core/units';
 import type { HandlerOutput } from '../api/contract';
-import type { PlotSeries } from './components/plot';
+import type { PlotSeries } from './components/plot-data';
 import { quantityDisplayFactor, quantityFieldConvert, quantityFieldValue } from './quantity-field';
 
 export type BenchRun = HandlerOutput<'benchList'>['runs'][number];

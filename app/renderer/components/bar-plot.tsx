@@ -9,30 +9,8 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import { csvFormat } from '../csv';
+import { barCsv, niceCeiling, type BarSeries } from './plot-data';
 import { PlotFrame, seriesStyle, tickText } from './plot-frame';
-
-/** The smallest 1, 2 or 5 × 10ⁿ at or above `v` (1 for nothing to show). */
-function niceCeiling(v: number): number {
-  if (!(v > 0) || !Number.isFinite(v)) return 1;
-  const e = 10 ** Math.floor(Math.log10(v));
-  return ([1, 2, 5, 10].find((m) => m * e >= v) ?? 10) * e;
-}
-
-/** One group of bars: a value per category (NaN where there is none). */
-export type BarSeries = { name: string; values: readonly number[] };
-
-/** The bars as CSV: a category column, then one column a series. */
-export function barCsv(
-  categoryLabel: string,
-  yLabel: string,
-  categories: readonly string[],
-  series: readonly BarSeries[],
-): string {
-  const rows: (string | number)[][] = [[categoryLabel, ...series.map((s) => `${s.name} (${yLabel})`)]];
-  categories.forEach((c, i) => rows.push([c, ...series.map((s) => s.values[i] ?? NaN)]));
-  return csvFormat(rows);
-}
 
 /**
  * Hatchings told apart without colour: the first series is solid, the others carry diagonal,
