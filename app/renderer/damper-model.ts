@@ -129,12 +129,12 @@ export type RunDampingRatios = {
 };
 
 /**
- * ζ of a run's fitted slopes fitted at a corner (DESIGN.md, Conventions): c_wheel = c_damper ·
+ * ζ of a run's fitted slopes at a corner (DESIGN.md, Conventions): c_wheel = c_damper ·
  * MRd², ζ = c_wheel / 2√(kw·ms), with kw = k_spring · MRs² and ms = M − mu; low and high
  * speed, bump and rebound. A direction the run has no fit for is null.
  */
 export function benchRunDampingRatios(fit: BenchFitStored, corner: ZetaCorner): RunDampingRatios {
-  const critical = criticalDampingOf(cornerWheelRate(corner), cornerSprungMass(corner as CornerInput));
+  const critical = criticalDampingOf(cornerWheelRate(corner), cornerSprungMass(corner));
   const mr2 = corner.damperMotionRatio * corner.damperMotionRatio;
   const ratio = (c: number, withClass: boolean): ZetaFigure => {
     const zeta = (c * mr2) / critical;

@@ -88,7 +88,7 @@ export function BarPlot(props: {
             stroke="#222"
           />
           <Tooltip formatter={(v) => valueText(Number(v))} />
-          <Legend verticalAlign="top" />
+          <Legend verticalAlign="bottom" wrapperStyle={{ paddingTop: 18 }} />
           {props.series.map((s, k) => {
             const style = seriesStyle(k);
             return (

@@ -52,8 +52,21 @@ export function LinePlot(props: {
         Math.min(xRange[0], xTicks[0] ?? xRange[0]),
         Math.max(xRange[1], xTicks[xTicks.length - 1] ?? xRange[1]),
       ];
+  const yRange: [number, number] | undefined = ys.length ? [Math.min(...ys), Math.max(...ys)] : undefined;
+  const yTicks = yRange
+    ? props.yLog
+      ? niceLogTicks(yRange[0], yRange[1])
+      : niceLinearTicks(yRange[0], yRange[1], 5)
+    : undefined;
   const yDomain: [number, number] | undefined =
-    props.yLog && ys.length ? [Math.min(...ys), Math.max(...ys)] : undefined;
+    yRange && yTicks
+      ? props.yLog
+        ? yRange
+        : [
+            Math.min(yRange[0], yTicks[0] ?? yRange[0]),
+            Math.max(yRange[1], yTicks[yTicks.length - 1] ?? yRange[1]),
+          ]
+      : undefined;
   return (
     <PlotFrame
       id={props.id}
@@ -79,8 +92,8 @@ export function LinePlot(props: {
             type="number"
             scale={props.yLog ? 'log' : 'linear'}
             domain={yDomain ?? ['auto', 'auto']}
-            allowDataOverflow={props.yLog}
-            ticks={props.yLog && yDomain ? niceLogTicks(yDomain[0], yDomain[1]) : undefined}
+            allowDataOverflow
+            ticks={yTicks}
             tickFormatter={tickText}
             width={72}
             label={{

@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
-import type { CornerInput } from '../../../core/corner';
+import { cornerSprungMass, cornerWheelRate, type CornerInput } from '../../../core/corner';
 import { InputError } from '../../../core/input-error';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
 import { numberFormat, quantityFormat, quantityUnitLabel, type UnitSystem } from '../../../core/units';
@@ -246,10 +246,10 @@ function ZetaPanel(props: { runs: BenchRun[]; units: UnitSystem }) {
       {corner ? (
         <>
           <p data-testid="zeta-corner">
-            Wheel rate {quantityFormat(corner.springRate * corner.springMotionRatio ** 2, 'stiffness', u)},
-            sprung mass {quantityFormat(corner.cornerMass - corner.unsprungMass, 'mass', u)}, damper motion
-            ratio {numberFormat(corner.damperMotionRatio, 3)}: ζ = c_damper · MRd² / 2√(wheel rate · sprung
-            mass), from each run&apos;s fitted slopes.
+            Wheel rate {quantityFormat(cornerWheelRate(corner), 'stiffness', u)}, sprung mass{' '}
+            {quantityFormat(cornerSprungMass(corner), 'mass', u)}, damper motion ratio{' '}
+            {numberFormat(corner.damperMotionRatio, 3)}: ζ = c_damper · MRd² / 2√(wheel rate · sprung mass),
+            from each run&apos;s fitted slopes.
           </p>
           <table className="figures" aria-label="Damping ratio per run">
             <thead>
