@@ -265,30 +265,41 @@ type RowSpec = {
   codes?: readonly string[];
 };
 
+/** A row showing one quantity of the corner's result, in the unit system's unit. */
+const quantityRow = (
+  key: string,
+  label: string,
+  kind: QuantityKind,
+  value: (c: CornerResult) => number,
+  codes?: readonly string[],
+  decimals?: number,
+): RowSpec => ({
+  key,
+  label,
+  text: (c, u) => quantityFormat(value(c), kind, u, decimals === undefined ? {} : { decimals }),
+  ...(codes ? { codes } : {}),
+});
+
 const zeta = (z: number) => numberFormat(z, 2);
 const percent = (x: number) => `${numberFormat(x * 100, 1)} %`;
 const modeText = (m: Modes['body']) =>
   m ? `${numberFormat(m.frequencyHz, 2)} Hz, ζ ${zeta(m.dampingRatio)}` : 'does not oscillate (overdamped)';
 
 const LINEAR_ROWS: readonly RowSpec[] = [
-  {
-    key: 'wheelRate',
-    label: 'Wheel rate',
-    text: (c, u) => quantityFormat(c.figures.wheelRate, 'stiffness', u),
-  },
-  { key: 'rideRate', label: 'Ride rate', text: (c, u) => quantityFormat(c.figures.rideRate, 'stiffness', u) },
-  {
-    key: 'rideFrequency',
-    label: 'Ride frequency',
-    text: (c, u) => quantityFormat(c.figures.rideFrequencyHz, 'frequency', u),
-    codes: ['ride-frequency-low', 'ride-frequency-high'],
-  },
-  {
-    key: 'wheelHopFrequency',
-    label: 'Wheel-hop frequency',
-    text: (c, u) => quantityFormat(c.figures.wheelHopFrequencyHz, 'frequency', u, { decimals: 1 }),
-    codes: ['wheel-hop-low', 'wheel-hop-high', 'unsprung-ratio'],
-  },
+  quantityRow('wheelRate', 'Wheel rate', 'stiffness', (c) => c.figures.wheelRate),
+  quantityRow('rideRate', 'Ride rate', 'stiffness', (c) => c.figures.rideRate),
+  quantityRow('rideFrequency', 'Ride frequency', 'frequency', (c) => c.figures.rideFrequencyHz, [
+    'ride-frequency-low',
+    'ride-frequency-high',
+  ]),
+  quantityRow(
+    'wheelHopFrequency',
+    'Wheel-hop frequency',
+    'frequency',
+    (c) => c.figures.wheelHopFrequencyHz,
+    ['wheel-hop-low', 'wheel-hop-high', 'unsprung-ratio'],
+    1,
+  ),
   {
     key: 'zetaBump',
     label: 'ζ bump, low speed (class)',
@@ -345,73 +356,41 @@ const STEP_ROWS: readonly RowSpec[] = [
 ];
 
 const ROAD_ROWS: readonly RowSpec[] = [
-  {
-    key: 'roadBodyAccel',
-    label: 'Body acceleration RMS',
-    text: (c, u) => quantityFormat(c.randomRoad.bodyAccelRms, 'acceleration', u),
-  },
-  {
-    key: 'roadBodyAccelWeighted',
-    label: 'Body acceleration RMS, Wk-weighted (ISO 2631-1)',
-    text: (c, u) => quantityFormat(c.randomRoad.bodyAccelWeightedRms, 'acceleration', u),
-  },
+  quantityRow('roadBodyAccel', 'Body acceleration RMS', 'acceleration', (c) => c.randomRoad.bodyAccelRms),
+  quantityRow(
+    'roadBodyAccelWeighted',
+    'Body acceleration RMS, Wk-weighted (ISO 2631-1)',
+    'acceleration',
+    (c) => c.randomRoad.bodyAccelWeightedRms,
+  ),
   {
     key: 'roadTireLoad',
     label: 'Dynamic tyre load RMS ÷ static',
     text: (c) => percent(c.randomRoad.tireLoadRmsRatio),
   },
-  {
-    key: 'roadTravel',
-    label: 'Suspension travel RMS',
-    text: (c, u) => quantityFormat(c.randomRoad.travelRms, 'length', u),
-  },
+  quantityRow('roadTravel', 'Suspension travel RMS', 'length', (c) => c.randomRoad.travelRms),
 ];
 
 const BUMP_ROWS: readonly RowSpec[] = [
-  {
-    key: 'bumpPeakAccel',
-    label: 'Peak body acceleration',
-    text: (c, u) => quantityFormat(c.bump.peakBodyAccel, 'acceleration', u),
-  },
-  {
-    key: 'bumpPeakBody',
-    label: 'Peak body displacement',
-    text: (c, u) => quantityFormat(c.bump.peakBodyDisplacement, 'length', u),
-  },
-  {
-    key: 'bumpMaxCompression',
-    label: 'Most compression (at the wheel)',
-    text: (c, u) => quantityFormat(c.bump.maxCompression, 'length', u),
-    codes: ['travel-beyond-limit'],
-  },
-  {
-    key: 'bumpMaxExtension',
-    label: 'Most extension (at the wheel)',
-    text: (c, u) => quantityFormat(c.bump.maxExtension, 'length', u),
-    codes: ['rebound-limit-reached', 'spring-unloaded'],
-  },
-  {
-    key: 'bumpMinTireLoad',
-    label: 'Least tyre load',
-    text: (c, u) => quantityFormat(c.bump.minTireLoad, 'force', u),
-  },
-  {
-    key: 'bumpMaxTireLoad',
-    label: 'Most tyre load',
-    text: (c, u) => quantityFormat(c.bump.maxTireLoad, 'force', u),
-  },
-  {
-    key: 'bumpAirborne',
-    label: 'Tyre off the road',
-    text: (c, u) => quantityFormat(c.bump.airborneTime, 'time', u),
-    codes: ['tire-lift-off'],
-  },
-  {
-    key: 'bumpStopTime',
-    label: 'Bump stop in contact',
-    text: (c, u) => quantityFormat(c.bump.bumpStopContactTime, 'time', u),
-    codes: ['bump-stop-engaged'],
-  },
+  quantityRow('bumpPeakAccel', 'Peak body acceleration', 'acceleration', (c) => c.bump.peakBodyAccel),
+  quantityRow('bumpPeakBody', 'Peak body displacement', 'length', (c) => c.bump.peakBodyDisplacement),
+  quantityRow(
+    'bumpMaxCompression',
+    'Most compression (at the wheel)',
+    'length',
+    (c) => c.bump.maxCompression,
+    ['travel-beyond-limit'],
+  ),
+  quantityRow('bumpMaxExtension', 'Most extension (at the wheel)', 'length', (c) => c.bump.maxExtension, [
+    'rebound-limit-reached',
+    'spring-unloaded',
+  ]),
+  quantityRow('bumpMinTireLoad', 'Least tyre load', 'force', (c) => c.bump.minTireLoad),
+  quantityRow('bumpMaxTireLoad', 'Most tyre load', 'force', (c) => c.bump.maxTireLoad),
+  quantityRow('bumpAirborne', 'Tyre off the road', 'time', (c) => c.bump.airborneTime, ['tire-lift-off']),
+  quantityRow('bumpStopTime', 'Bump stop in contact', 'time', (c) => c.bump.bumpStopContactTime, [
+    'bump-stop-engaged',
+  ]),
   {
     key: 'bumpShaftSpeed',
     label: 'Peak shaft speed, bump / rebound',

@@ -10,7 +10,7 @@ import {
   YAxis,
 } from 'recharts';
 import { barCsv, niceCeiling, type BarSeries } from './plot-data';
-import { PlotFrame, seriesStyle, tickText } from './plot-frame';
+import { PlotFrame, axisLabelX, axisLabelY, seriesStyle, tickText } from './plot-frame';
 
 /**
  * Hatchings told apart without colour: the first series is solid, the others carry diagonal,
@@ -65,26 +65,14 @@ export function BarPlot(props: {
         <BarChart data={data} margin={{ top: 18, right: 24, bottom: 28, left: 16 }}>
           <defs>{props.series.map((_, k) => fillPattern(props.id, k, seriesStyle(k).colour))}</defs>
           <CartesianGrid stroke="#d0d0d0" strokeDasharray="2 4" vertical={false} />
-          <XAxis
-            dataKey="category"
-            type="category"
-            label={{ value: props.categoryLabel, position: 'insideBottom', offset: -16, fill: '#111' }}
-            stroke="#222"
-          />
+          <XAxis dataKey="category" type="category" label={axisLabelX(props.categoryLabel)} stroke="#222" />
           <YAxis
             type="number"
             // Headroom above the tallest bar for its value label.
             domain={[0, (max: number) => niceCeiling(max * 1.2)]}
             tickFormatter={tickText}
             width={72}
-            label={{
-              value: props.yLabel,
-              angle: -90,
-              position: 'insideLeft',
-              offset: 0,
-              fill: '#111',
-              style: { textAnchor: 'middle' },
-            }}
+            label={axisLabelY(props.yLabel)}
             stroke="#222"
           />
           <Tooltip formatter={(v) => valueText(Number(v))} />

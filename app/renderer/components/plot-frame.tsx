@@ -28,6 +28,24 @@ export const tickText = (v: number) => {
   return String(Number(v.toPrecision(3)));
 };
 
+/** The label under a horizontal axis, its words and unit in dark ink. */
+export const axisLabelX = (value: string) => ({
+  value,
+  position: 'insideBottom' as const,
+  offset: -16,
+  fill: '#111',
+});
+
+/** The label beside a vertical axis, turned to read upwards. */
+export const axisLabelY = (value: string) => ({
+  value,
+  angle: -90,
+  position: 'insideLeft' as const,
+  offset: 0,
+  fill: '#111',
+  style: { textAnchor: 'middle' as const },
+});
+
 /** Renders an SVG chart to a PNG data URL on a white background, at twice the screen resolution. */
 export async function svgToPng(svg: SVGSVGElement): Promise<string> {
   const box = svg.getBoundingClientRect();

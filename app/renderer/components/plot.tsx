@@ -9,7 +9,7 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import { PlotFrame, seriesStyle, tickText } from './plot-frame';
+import { PlotFrame, axisLabelX, axisLabelY, seriesStyle, tickText } from './plot-frame';
 import { niceLinearTicks, niceLogTicks, plotCsv, type PlotSeries } from './plot-data';
 
 export { SERIES_STYLES, svgToPng } from './plot-frame';
@@ -85,7 +85,7 @@ export function LinePlot(props: {
             allowDataOverflow
             ticks={xTicks}
             tickFormatter={tickText}
-            label={{ value: props.xLabel, position: 'insideBottom', offset: -16, fill: '#111' }}
+            label={axisLabelX(props.xLabel)}
             stroke="#222"
           />
           <YAxis
@@ -96,14 +96,7 @@ export function LinePlot(props: {
             ticks={yTicks}
             tickFormatter={tickText}
             width={72}
-            label={{
-              value: props.yLabel,
-              angle: -90,
-              position: 'insideLeft',
-              offset: 0,
-              fill: '#111',
-              style: { textAnchor: 'middle' },
-            }}
+            label={axisLabelY(props.yLabel)}
             stroke="#222"
           />
           <Tooltip

@@ -24,6 +24,7 @@ import { CautionLine, WarningList } from '../components/caution';
 import { LinePlot } from '../components/plot';
 import { RevisionPicker } from '../components/revision-pick';
 import { ErrorLine, ProgressLine } from '../components/status';
+import { TextInputField } from '../components/text-input-field';
 
 type Shown = {
   pick: RevisionPick;
@@ -69,29 +70,18 @@ function OptionsForm(props: {
           </select>
           <span className="unit" />
         </div>
-        {OPTION_FIELDS.map((f) => {
-          const id = `analysis-${f.key}`;
-          const problem = problems.get(f.key);
-          return (
-            <div className="field" key={f.key}>
-              <label htmlFor={id}>{f.label}</label>
-              <input
-                id={id}
-                inputMode="decimal"
-                value={texts[f.key]}
-                aria-invalid={problem ? true : undefined}
-                aria-describedby={problem ? `${id}-error` : undefined}
-                onChange={(e) => props.onChange({ ...texts, [f.key]: e.target.value })}
-              />
-              <span className="unit">{quantityUnitLabel(f.kind, props.units)}</span>
-              {problem ? (
-                <span className="error-text" id={`${id}-error`} role="alert">
-                  {problem}
-                </span>
-              ) : null}
-            </div>
-          );
-        })}
+        {OPTION_FIELDS.map((f) => (
+          <TextInputField
+            key={f.key}
+            id={`analysis-${f.key}`}
+            label={f.label}
+            value={texts[f.key]}
+            unit={quantityUnitLabel(f.kind, props.units)}
+            problem={problems.get(f.key)}
+            numeric
+            onChange={(text) => props.onChange({ ...texts, [f.key]: text })}
+          />
+        ))}
       </div>
     </fieldset>
   );

@@ -25,6 +25,7 @@ import { CautionLine } from '../components/caution';
 import { LinePlot } from '../components/plot';
 import { RevisionPicker } from '../components/revision-pick';
 import { ErrorLine, ProgressLine } from '../components/status';
+import { TextInputField } from '../components/text-input-field';
 import {
   ZETA_CORNER_FIELDS,
   benchPlotLabels,
@@ -215,30 +216,19 @@ function ZetaPanel(props: { runs: BenchRun[]; units: UnitSystem }) {
           </div>
         ) : (
           <div className="option-fields">
-            {ZETA_CORNER_FIELDS.map((f) => {
-              const id = `zeta-${f.key}`;
-              const problem = problems.get(f.key);
-              return (
-                <div className="field" key={f.key}>
-                  <label htmlFor={id}>{f.label}</label>
-                  <input
-                    id={id}
-                    inputMode="decimal"
-                    value={texts[f.key]}
-                    placeholder={f.key === 'damperMotionRatio' ? 'as spring' : undefined}
-                    aria-invalid={problem ? true : undefined}
-                    aria-describedby={problem ? `${id}-error` : undefined}
-                    onChange={(e) => setTexts({ ...texts, [f.key]: e.target.value })}
-                  />
-                  <span className="unit">{f.kind === 'ratio' ? '' : quantityUnitLabel(f.kind, u)}</span>
-                  {problem ? (
-                    <span className="error-text" id={`${id}-error`} role="alert">
-                      {problem}
-                    </span>
-                  ) : null}
-                </div>
-              );
-            })}
+            {ZETA_CORNER_FIELDS.map((f) => (
+              <TextInputField
+                key={f.key}
+                id={`zeta-${f.key}`}
+                label={f.label}
+                value={texts[f.key]}
+                unit={f.kind === 'ratio' ? '' : quantityUnitLabel(f.kind, u)}
+                problem={problems.get(f.key)}
+                placeholder={f.key === 'damperMotionRatio' ? 'as spring' : undefined}
+                numeric
+                onChange={(text) => setTexts({ ...texts, [f.key]: text })}
+              />
+            ))}
           </div>
         )}
       </fieldset>
@@ -442,35 +432,23 @@ function ImportPanel(props: {
     }
   };
 
-  const fieldError = (key: string) => {
-    const p = problems.get(key);
-    return p ? (
-      <span className="error-text" id={`bench-${key}-error`} role="alert">
-        {p}
-      </span>
-    ) : null;
-  };
-  const described = (key: string) =>
-    problems.has(key) ? { 'aria-invalid': true, 'aria-describedby': `bench-${key}-error` } : {};
-
   const text = (
     key: 'date' | 'stroke' | 'testFrequency' | 'temperature' | 'clicks' | 'notes',
     label: string,
     unit: string,
     placeholder?: string,
   ) => (
-    <div className="field" key={key}>
-      <label htmlFor={`bench-${key}`}>{label}</label>
-      <input
-        id={`bench-${key}`}
-        value={mapping[key]}
-        placeholder={placeholder}
-        onChange={(e) => set({ [key]: e.target.value })}
-        {...described(key)}
-      />
-      <span className="unit">{unit}</span>
-      {fieldError(key)}
-    </div>
+    <TextInputField
+      key={key}
+      id={`bench-${key}`}
+      label={label}
+      value={mapping[key]}
+      unit={unit}
+      problem={problems.get(key)}
+      placeholder={placeholder}
+      numeric={key === 'stroke' || key === 'testFrequency' || key === 'temperature'}
+      onChange={(t) => set({ [key]: t })}
+    />
   );
 
   return (
@@ -601,18 +579,15 @@ function ImportPanel(props: {
         </fieldset>
         <fieldset>
           <legend>The run</legend>
-          <div className="field">
-            <label htmlFor="bench-damper">Damper unit (existing or new) *</label>
-            <input
-              id="bench-damper"
-              list="bench-damper-units"
-              value={mapping.damper}
-              onChange={(e) => set({ damper: e.target.value })}
-              {...described('damper')}
-            />
-            <span className="unit">{mapping.damper.trim() ? (existing ? 'existing' : 'new') : ''}</span>
-            {fieldError('damper')}
-          </div>
+          <TextInputField
+            id="bench-damper"
+            label="Damper unit (existing or new) *"
+            value={mapping.damper}
+            unit={mapping.damper.trim() ? (existing ? 'existing' : 'new') : ''}
+            problem={problems.get('damper')}
+            list="bench-damper-units"
+            onChange={(t) => set({ damper: t })}
+          />
           <datalist id="bench-damper-units">
             {props.dampers.map((d) => (
               <option key={d.id} value={d.label} />
