@@ -1,4 +1,4 @@
-import { cornerQuarterCar, type CornerFigures, type CornerInput } from '../../core/corner';
+import { cornerQuarterCar, cornerValidate, type CornerFigures, type CornerInput } from '../../core/corner';
 import { cornerAnalyze } from '../../core/corner-analysis';
 import { bumpSpecParse, roadSpecParse, type BumpSpec, type RoadSpec } from '../../core/corner-file';
 import { eventBump } from '../../core/event';
@@ -204,6 +204,7 @@ function stepWindowOf(steps: readonly StepResponse[]): number {
  * 10 mm step with its history, the frequency response on a log grid, the random-road RMS
  * figures and the bump on the nonlinear quarter car with its history, with every warning.
  * `progress` is told after each corner (fraction done, what comes next).
+ * @throws InputError naming the corner's field when a corner is not one a car could have.
  */
 export function setupAnalyze(
   corners: Record<CornerPosition, CornerInput>,
@@ -215,6 +216,8 @@ export function setupAnalyze(
   CORNER_POSITIONS.forEach((p, i) => {
     progress?.(i / (CORNER_POSITIONS.length + 1), `${p}: figures, random road and the bump`);
     const corner = corners[p];
+    // Corners read from a file are checked already; one handed over otherwise is checked here.
+    cornerValidate(corner, `corners.${p}.corner`);
     const linear = cornerAnalyze({ name: p, corner, road: options.road }, { frequencies });
     const event = eventBump(options.bump);
     const sim = eventSimulate(corner, event, { historyPoints: HISTORY_POINTS });

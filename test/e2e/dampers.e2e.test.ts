@@ -1,4 +1,5 @@
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -152,6 +153,42 @@ describe.skipIf(!chromium)('Dampers, in Chromium against the served app', () => 
       [{ rebound: 4 }, 48, 305.15],
     ]);
     await screenshotSave(page, 'dampers-imported');
+  });
+
+  it('cancels a long import of a large trace, and stores nothing', async () => {
+    // An invented 2 Hz, 50 mm sine trace sampled at 100 kHz for 5 s: 500 000 rows, about 12 MB —
+    // long enough to read that the Cancel button is pressed while it runs.
+    const rows = ['time [s],displacement [mm],force [N]'];
+    for (let i = 0; i < 500_000; i++) {
+      const t = i / 100_000;
+      const x = 25 * Math.sin(2 * Math.PI * 2 * t);
+      const v = 25 * 2 * Math.PI * 2 * Math.cos(2 * Math.PI * 2 * t);
+      rows.push(`${t.toFixed(6)},${x.toFixed(4)},${(3 * v).toFixed(2)}`);
+    }
+    const dir = mkdtempSync(join(tmpdir(), 'rideledger-bench-'));
+    const big = join(dir, 'long-trace.csv');
+    writeFileSync(big, rows.join('\n'));
+    try {
+      const chooser = page.waitForEvent('filechooser');
+      await page.getByRole('button', { name: 'Import a bench file…' }).click();
+      await (await chooser).setFiles(big);
+      const panel = page.getByRole('region', { name: 'Import a bench file' });
+      await expect
+        .poll(() => panel.getByTestId('bench-check').innerText())
+        .toBe('This file is large: it is checked when imported.');
+      await panel.getByLabel('Damper unit (existing or new) *').fill('MB-LONG-1');
+      await panel.getByRole('button', { name: 'Import', exact: true }).click();
+      await panel.getByRole('status').filter({ hasText: 'Importing' }).waitFor();
+      await panel.getByRole('button', { name: 'Cancel' }).click();
+      await expect
+        .poll(() => panel.getByRole('alert').allInnerTexts())
+        .toContain('Import cancelled: nothing was stored.');
+      const { dampers } = await api('benchList', {});
+      expect(dampers.map((d) => d.label)).not.toContain('MB-LONG-1');
+      await panel.getByRole('button', { name: 'Close without importing' }).click();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 
   it('saves the force–velocity data as CSV in US units', async () => {

@@ -5,7 +5,7 @@ import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet
 import { numberFormat, quantityFormat, quantityUnitLabel, type UnitSystem } from '../../../core/units';
 import type { HandlerOutput } from '../../api/contract';
 import { analysisCornersOf } from '../analysis-model';
-import { apiCall, apiJob } from '../api-client';
+import { ApiCallError, apiCall, apiJob } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
 import {
   KIND_ROLES,
@@ -423,9 +423,9 @@ function ImportPanel(props: {
       props.onImported(r);
     } catch (e) {
       setFailure(
-        e instanceof Error
-          ? `Not imported, nothing was stored: ${benchProblemText(new InputError('', e.message))}`
-          : String(e),
+        e instanceof ApiCallError && e.status === 499
+          ? 'Import cancelled: nothing was stored.'
+          : `Not imported, nothing was stored: ${benchProblemText(new InputError('', e instanceof Error ? e.message : String(e)))}`,
       );
     } finally {
       setJob(null);
