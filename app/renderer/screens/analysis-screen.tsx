@@ -216,7 +216,8 @@ export function AnalysisScreen() {
     textsUnits.current = units;
   }, [units]);
 
-  const read = useMemo(() => analysisOptionsRead(texts, textsUnits.current), [texts]);
+  // The texts are read in the system they were typed in; the switch converts them just after.
+  const read = useMemo(() => analysisOptionsRead(texts, textsUnits.current), [texts, units]);
   const options: AnalysisOptions | null = 'options' in read ? read.options : null;
   const problems = 'problems' in read ? read.problems : new Map<keyof AnalysisOptionTexts, string>();
   const runKey = shown && options ? JSON.stringify([shown.pick, shown.revision.savedAt, options]) : null;

@@ -166,7 +166,7 @@ function ZetaPanel(props: { runs: BenchRun[]; units: UnitSystem }) {
     };
   }, [source, pick, app.dataVersion]);
 
-  const entered = useMemo(() => zetaCornerRead(texts, textsUnits.current), [texts]);
+  const entered = useMemo(() => zetaCornerRead(texts, textsUnits.current), [texts, u]);
   const corner: ZetaCorner | null =
     source === 'setup' ? (corners?.[position] ?? null) : 'corner' in entered ? entered.corner : null;
   const problems = 'problems' in entered ? entered.problems : new Map<keyof ZetaCornerTexts, string>();
@@ -267,7 +267,7 @@ function ZetaPanel(props: { runs: BenchRun[]; units: UnitSystem }) {
             </tbody>
           </table>
         </>
-      ) : source === 'setup' && !error ? (
+      ) : source === 'setup' && pick && !error ? (
         <p>Loading the corner…</p>
       ) : null}
     </section>
@@ -402,7 +402,7 @@ function ImportPanel(props: {
   const live = preview.text.length <= LIVE_CHECK_MAX_CHARS;
   const check = useMemo(
     () => (live ? benchMappingCheck(preview, mapping, mappingUnits.current) : null),
-    [preview, mapping, live],
+    [preview, mapping, live, units],
   );
   const problems = check && !check.ok ? check.problems : new Map<string, string>();
   const set = (patch: Partial<BenchMapping>) => {
