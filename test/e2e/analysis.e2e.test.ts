@@ -1,8 +1,9 @@
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appServe, browserOpen, e2eChromium, type ServedApp } from './browser';
-import { demoShopOpen, screenshotSave, tabOrder, unlabelledControls } from './demo-shop';
+import { SCREENSHOT_DIR, demoShopOpen, screenshotSave, tabOrder, unlabelledControls } from './demo-shop';
 
 const chromium = e2eChromium();
 
@@ -146,6 +147,30 @@ describe.skipIf(!chromium)('Ride figures, in Chromium against the served app', (
         'RL: Frequency (Hz),RL: m/s² per in of road,RR: Frequency (Hz),RR: m/s² per in of road',
     );
     expect(Number(first?.split(',')[0])).toBeCloseTo(0.3, 9);
+  });
+
+  it('saves a plot as a PNG image', async () => {
+    const download = page.waitForEvent('download');
+    await page
+      .locator('figure[data-plot="road-body-accel"]')
+      .getByRole('button', { name: /Save PNG/ })
+      .click();
+    const file = await download;
+    expect(file.suggestedFilename()).toBe('road-body-accel.png');
+    const bytes = readFileSync((await file.path()) as string);
+    // The PNG signature (ISO/IEC 15948 [pub]): 89 50 4E 47 0D 0A 1A 0A; drawn at twice the screen size.
+    expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+    const width = bytes.readUInt32BE(16);
+    const chart = page.locator(
+      'figure[data-plot="road-body-accel"] .recharts-wrapper > svg.recharts-surface',
+    );
+    const shown = await chart.boundingBox();
+    // The chart itself at twice its size, not a legend swatch (recharts draws those as small SVGs
+    // too), and taller than the chart by the title and legend drawn above it.
+    expect(width).toBe(Math.ceil((shown?.width ?? 0) * 2));
+    expect(width).toBeGreaterThan(600);
+    expect(bytes.readUInt32BE(20)).toBeGreaterThan(Math.ceil((shown?.height ?? 0) * 2) + 40);
+    writeFileSync(join(SCREENSHOT_DIR, 'ride-figures-saved-plot.png'), bytes);
   });
 
   it('labels every control and reaches the road and bump fields by keyboard', async () => {

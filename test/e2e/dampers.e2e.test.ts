@@ -205,6 +205,12 @@ describe.skipIf(!chromium)('Dampers, in Chromium against the served app', () => 
       /^"#\d+ rebound 4 measured: Shaft velocity, compression \+ \(in\/s\)","#\d+ rebound 4 measured: Damper force, compression \+ \(lbf\)","#\d+ rebound 4 fitted: Shaft velocity/,
     );
     expect(first?.split(',').every((c) => c === '' || Number.isFinite(Number(c)))).toBe(true);
+    const png = page.waitForEvent('download');
+    await figure.getByRole('button', { name: /Save PNG/ }).click();
+    const image = readFileSync((await (await png).path()) as string);
+    // The PNG signature (ISO/IEC 15948 [pub]).
+    expect([...image.subarray(0, 4)]).toEqual([0x89, 0x50, 0x4e, 0x47]);
+    writeFileSync(join(PROJECT_ROOT, 'test-results', 'dampers-saved-plot.png'), image);
     await screenshotSave(page, 'dampers-us');
   });
 

@@ -60,6 +60,12 @@ export function BarPlot(props: {
       title={props.title}
       height={props.height ?? 260}
       csv={() => barCsv(props.categoryLabel, props.yLabel, props.categories, props.series)}
+      legend={props.series.map((x, k) => ({
+        text: x.name,
+        colour: seriesStyle(k).colour,
+        swatch: 'box' as const,
+        hatch: k % 4,
+      }))}
     >
       <ResponsiveContainer width="100%" height="100%">
         <BarChart data={data} margin={{ top: 18, right: 24, bottom: 28, left: 16 }}>

@@ -73,6 +73,13 @@ export function LinePlot(props: {
       title={props.title}
       height={props.height ?? 280}
       csv={() => plotCsv(props.xLabel, props.yLabel, props.series)}
+      legend={data.map((d) => ({
+        text: d.name,
+        colour: d.style.colour,
+        ...(d.asPoints
+          ? { swatch: 'marker' as const, marker: d.style.marker }
+          : { swatch: 'line' as const, dash: d.style.dash }),
+      }))}
     >
       <ResponsiveContainer width="100%" height="100%">
         <ComposedChart margin={{ top: 8, right: 24, bottom: 28, left: 16 }}>
