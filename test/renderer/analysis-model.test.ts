@@ -13,7 +13,7 @@ import {
 } from '../../app/renderer/analysis-model';
 import type { CornerInput } from '../../core/corner';
 import { InputError } from '../../core/input-error';
-import type { CornerPosition } from '../../core/setup-sheet';
+import { WORKED_CORNER, fourOf } from './worked-corner';
 
 const demoFile = (name: string) =>
   JSON.parse(readFileSync(new URL(`../../assets/demo/setups/${name}`, import.meta.url), 'utf8')) as Record<
@@ -21,19 +21,7 @@ const demoFile = (name: string) =>
     unknown
   >;
 
-/** The worked random-road case of REFERENCES §5 as a corner: ms 250, mu 35, ks 16 kN/m, cs 1000 N·s/m, kt 160 kN/m. */
-const WORKED: CornerInput = {
-  cornerMass: 285,
-  unsprungMass: 35,
-  springRate: 16_000,
-  springMotionRatio: 1,
-  damperMotionRatio: 1,
-  tireRate: 160_000,
-  tireDamping: 0,
-  damper: { bump: { kind: 'linear', coefficient: 1000 }, rebound: { kind: 'linear', coefficient: 1000 } },
-};
-
-const fourOf = (c: CornerInput): Record<CornerPosition, CornerInput> => ({ FL: c, FR: c, RL: c, RR: c });
+const WORKED = WORKED_CORNER;
 
 const optionsOf = (
   texts: Parameters<typeof analysisOptionsRead>[0],

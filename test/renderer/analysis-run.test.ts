@@ -10,19 +10,10 @@ import {
   type AnalysisRequest,
 } from '../../app/renderer/analysis-request';
 import { AnalysisCancelled, analysisRunner, type AnalysisWorker } from '../../app/renderer/analysis-run';
-import type { CornerInput } from '../../core/corner';
+import { WORKED_CORNER, fourOf } from './worked-corner';
 
-const CORNER: CornerInput = {
-  cornerMass: 285,
-  unsprungMass: 35,
-  springRate: 16_000,
-  springMotionRatio: 1,
-  damperMotionRatio: 1,
-  tireRate: 160_000,
-  tireDamping: 0,
-  damper: { bump: { kind: 'linear', coefficient: 1000 }, rebound: { kind: 'linear', coefficient: 1000 } },
-};
-const CORNERS = { FL: CORNER, FR: CORNER, RL: CORNER, RR: CORNER };
+const CORNER = WORKED_CORNER;
+const CORNERS = fourOf(CORNER);
 const read = analysisOptionsRead(analysisOptionTextsDefault('si'), 'si');
 const OPTIONS = (read as { options: AnalysisOptions }).options;
 
