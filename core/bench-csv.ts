@@ -196,3 +196,24 @@ export function csvNumbersRead(
   wanted.forEach((col, w) => columns.set(col, (data[w] as Float64Array).subarray(0, rows)));
   return { columns, rowCount: rows, lines: lines.subarray(0, rows), decimal: decimal ?? '.' };
 }
+
+/**
+ * The first `count` data rows below the header as the file writes them (cells trimmed, not yet
+ * read as numbers), for a preview before the columns are chosen. Blank and `#` comment lines
+ * are skipped; a row may have more or fewer cells than the header.
+ * @throws InputError for a row whose quote is never closed.
+ */
+export function csvRowsPreview(text: string, header: CsvHeader, count: number): string[][] {
+  const rows: string[][] = [];
+  let pos = header.dataStart;
+  let lineNo = header.line;
+  while (pos < text.length && rows.length < count) {
+    const end = lineEnd(text, pos);
+    const content = lineAt(text, pos, end);
+    pos = end + 1;
+    lineNo++;
+    if (content.trim() === '' || content.trimStart().startsWith('#')) continue;
+    rows.push(cellsOf(content, header.delimiter, lineNo).map((c) => c.trim()));
+  }
+  return rows;
+}

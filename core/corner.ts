@@ -139,7 +139,7 @@ export function cornerValidate(c: CornerInput, field = 'corner'): void {
 }
 
 /** Sprung mass ms = M − mu (kg). */
-export function cornerSprungMass(c: CornerInput): number {
+export function cornerSprungMass(c: Pick<CornerInput, 'cornerMass' | 'unsprungMass'>): number {
   return c.cornerMass - c.unsprungMass;
 }
 

@@ -1,5 +1,6 @@
-// A job's thread starts here: tsx's loader is registered in the thread, then the TypeScript
-// worker runs (a worker thread does not inherit the loader of the process that starts it).
+// The thread a job runs in. On Node 20 a worker thread does not get the parent's tsx loader
+// (neither from the parent nor from --import in execArgv), so it registers its own before
+// loading the TypeScript worker.
 import { register } from 'tsx/esm/api';
 
 register();

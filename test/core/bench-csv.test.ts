@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { csvHeaderRead, csvNumbersRead } from '../../core/bench-csv';
+import { csvHeaderRead, csvNumbersRead, csvRowsPreview } from '../../core/bench-csv';
 import { InputError } from '../../core/input-error';
 import { inputErrorOf } from '../input-error-fixture';
 
@@ -140,5 +140,30 @@ describe('csvNumbersRead', () => {
       ),
       { numRuns: 200 },
     );
+  });
+});
+
+describe('csvRowsPreview', () => {
+  it('gives the first rows below the header as written, skipping blank and comment lines', () => {
+    const text = '# bench\nv;f\n\n0,1;20\n# note\n0,2;"3;0"\n0,3;40\n';
+    const rows = csvRowsPreview(text, csvHeaderRead(text), 2);
+    expect(rows).toEqual([
+      ['0,1', '20'],
+      ['0,2', '3;0'],
+    ]);
+  });
+
+  it('gives what there is when the file is shorter, and nothing below a header alone', () => {
+    const text = 'velocity,force\n0.1, 200 \n';
+    expect(csvRowsPreview(text, csvHeaderRead(text), 10)).toEqual([['0.1', '200']]);
+    const bare = 'velocity,force';
+    expect(csvRowsPreview(bare, csvHeaderRead(bare), 10)).toEqual([]);
+    expect(csvRowsPreview(text, csvHeaderRead(text), 0)).toEqual([]);
+  });
+
+  it('shows a ragged row as it is, and names the line of an unclosed quote', () => {
+    const text = 'velocity,force\n0.1,200,9\n0.2,"300\n';
+    expect(() => csvRowsPreview(text, csvHeaderRead(text), 5)).toThrow('line 3: has a quote');
+    expect(csvRowsPreview(text, csvHeaderRead(text), 1)).toEqual([['0.1', '200', '9']]);
   });
 });

@@ -24,7 +24,7 @@ import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
 import { CautionLine, WarningList } from '../components/caution';
 import { LinePlot, type PlotSeries } from '../components/plot';
-import { RevisionPicker } from '../components/revision-picker';
+import { RevisionPicker } from '../components/revision-pick';
 import { ErrorLine } from '../components/status';
 
 type Presets = HandlerOutput<'valvingPresets'>;
@@ -64,6 +64,7 @@ export function CompareScreen() {
   const [loaded, setLoaded] = useState<Loaded[]>([]);
   const [compared, setCompared] = useState<Compared[]>([]);
   const [error, setError] = useState<unknown>(null);
+  const [candidate, setCandidate] = useState<RevisionPick | null>(null);
 
   useEffect(() => {
     apiCall('valvingPresets', {}).then(setPresets, setError);
@@ -164,7 +165,18 @@ export function CompareScreen() {
     <section aria-label="Compare setups">
       <h2>Compare setups</h2>
       <CautionLine />
-      <RevisionPicker label="Add a revision" actionLabel="Add to the comparison" onPick={add} />
+      <fieldset className="toolbar">
+        <legend>Add a revision</legend>
+        <RevisionPicker idPrefix={`${id}-add`} value={candidate} onChange={setCandidate} />
+        <button
+          type="button"
+          className="secondary"
+          disabled={!candidate || picks.length >= 4}
+          onClick={() => candidate && add(candidate)}
+        >
+          Add to the comparison
+        </button>
+      </fieldset>
       <ul className="chips" aria-label="Revisions compared">
         {loaded.map((l, i) => (
           <li key={`${l.pick.vehicle}-${l.pick.revision}`}>

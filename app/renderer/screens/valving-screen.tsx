@@ -16,7 +16,7 @@ import type { HandlerOutput } from '../../api/contract';
 import { apiCall, apiJob, ApiCallError, type JobProgress } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
 import { CautionLine, WarningList } from '../components/caution';
-import { RevisionPicker } from '../components/revision-picker';
+import { RevisionPicker } from '../components/revision-pick';
 import { ErrorLine, ProgressLine } from '../components/status';
 
 type Presets = HandlerOutput<'valvingPresets'>;
@@ -341,12 +341,10 @@ export function ValvingScreen() {
     <section aria-label="Choose valving">
       <h2>Valving</h2>
       <CautionLine />
-      <RevisionPicker
-        label="Setup to choose for"
-        actionLabel="Use this setup"
-        onPick={setPick}
-        initial={pick}
-      />
+      <fieldset>
+        <legend>Setup to choose for</legend>
+        <RevisionPicker idPrefix={`${id}-setup`} value={pick} onChange={setPick} />
+      </fieldset>
       {pick ? (
         <p>
           Choosing for{' '}

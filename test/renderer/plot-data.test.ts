@@ -1,0 +1,103 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+  barCsv,
+  niceCeiling,
+  niceLinearTicks,
+  niceLogTicks,
+  plotCsv,
+} from '../../app/renderer/components/plot-data';
+import {
+  quantityDisplayFactor,
+  quantityFieldConvert,
+  quantityFieldValue,
+} from '../../app/renderer/quantity-field';
+
+describe('plot ticks', () => {
+  it('puts round linear ticks around the data', () => {
+    expect(niceLinearTicks(0, 1.5)).toEqual([0, 0.25, 0.5, 0.75, 1, 1.25, 1.5]);
+    expect(niceLinearTicks(-0.501, 0.5)).toEqual([-0.6, -0.4, -0.2, 0, 0.2, 0.4, 0.6]);
+    expect(niceLinearTicks(3, 3)).toEqual([3]);
+    expect(niceLinearTicks(NaN, 1)).toEqual([NaN]);
+  });
+
+  it('always covers the range with about six steps of 1, 2, 2.5 or 5 × 10ⁿ', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -1e6, max: 1e6, noNaN: true }),
+        fc.double({ min: 1e-6, max: 1e6, noNaN: true }),
+        (lo, span) => {
+          const hi = lo + span;
+          // Plotted data span more than a millionth of their offset; the plot's domain takes the
+          // data's own ends beside the ticks in any case.
+          fc.pre(hi > lo && span > 1e-6 * Math.abs(lo));
+          const t = niceLinearTicks(lo, hi);
+          // Covered to within a millionth of the span (the ticks are rounded to 12 digits).
+          expect(t[0]).toBeLessThanOrEqual(lo + 1e-6 * span);
+          expect(t[t.length - 1]).toBeGreaterThanOrEqual(hi - 1e-6 * span);
+          expect(t.length).toBeGreaterThanOrEqual(2);
+          expect(t.length).toBeLessThanOrEqual(14);
+        },
+      ),
+    );
+  });
+
+  it('puts log ticks at 1, 2 and 5 per decade', () => {
+    expect(niceLogTicks(0.3, 40)).toEqual([0.5, 1, 2, 5, 10, 20]);
+  });
+
+  it('leaves headroom above the tallest bar at a round value', () => {
+    expect(niceCeiling(3.48 * 1.2)).toBe(5);
+    expect(niceCeiling(0.31)).toBe(0.5);
+    expect(niceCeiling(0)).toBe(1);
+    expect(niceCeiling(Number.POSITIVE_INFINITY)).toBe(1);
+  });
+});
+
+describe('plot data as CSV', () => {
+  it('writes one x and one y column a series, padding shorter series', () => {
+    const csv = plotCsv('Time (s)', 'Travel (mm)', [
+      { name: 'FL', x: [0, 1], y: [2, 3] },
+      { name: 'FR', x: [0], y: [4] },
+    ]);
+    expect(csv).toBe('FL: Time (s),FL: Travel (mm),FR: Time (s),FR: Travel (mm)\r\n0,2,0,4\r\n1,3,,\r\n');
+  });
+
+  it('writes the bars a row per category, empty where there is no value', () => {
+    const csv = barCsv(
+      'Corner',
+      'RMS (m/s²)',
+      ['FL', 'FR'],
+      [
+        { name: 'plain', values: [1.5, NaN] },
+        { name: 'Wk, weighted', values: [1.2, 0.9] },
+      ],
+    );
+    expect(csv).toBe('Corner,plain (RMS (m/s²)),"Wk, weighted (RMS (m/s²))"\r\nFL,1.5,1.2\r\nFR,,0.9\r\n');
+  });
+});
+
+describe('quantity fields', () => {
+  it('gives a bare number the unit shown beside it and keeps a typed unit', () => {
+    expect(quantityFieldValue(' 80 ', 'speed', 'si')).toBe('80 km/h');
+    expect(quantityFieldValue('50', 'speed', 'us')).toBe('50 mi/h');
+    expect(quantityFieldValue('1 in', 'length', 'si')).toBe('1 in');
+    expect(quantityFieldValue('', 'length', 'si')).toBeUndefined();
+    expect(quantityFieldValue('-2e-3', 'length', 'si')).toBe('-2e-3 mm');
+  });
+
+  it('converts between systems to six digits, and keeps text that does not read', () => {
+    // NIST SP 811 [pub]: 1 in = 25.4 mm; 100 °F = 37.7778 °C.
+    expect(quantityFieldConvert('25.4', 'length', 'si', 'us')).toBe('1');
+    expect(quantityFieldConvert('100', 'temperature', 'us', 'si')).toBe('37.7778');
+    expect(quantityFieldConvert('abc', 'length', 'si', 'us')).toBe('abc');
+    expect(quantityFieldConvert('', 'length', 'si', 'us')).toBe('');
+    expect(quantityFieldConvert('12', 'length', 'si', 'si')).toBe('12');
+  });
+
+  it('scales SI to display units by the factor of the unit', () => {
+    expect(quantityDisplayFactor('length', 'si')).toBeCloseTo(1000, 9);
+    expect(quantityDisplayFactor('force', 'us')).toBeCloseTo(1 / 4.4482216152605, 12);
+    expect(quantityDisplayFactor('acceleration', 'us')).toBe(1);
+  });
+});
