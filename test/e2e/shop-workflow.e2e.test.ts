@@ -1,4 +1,4 @@
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -135,6 +135,64 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     );
     await diff.getByRole('note', { name: 'Caution' }).waitFor();
     await shot('04-diff');
+  });
+
+  it('compares the two revisions with overlaid plots and a delta table', async () => {
+    await page.getByRole('button', { name: /Compare picked \(2\)/ }).click();
+    const table = page.getByTestId('compare-table');
+    await table.waitFor();
+    // Front springs 400 → 500 lbf/in: the FL ride frequency 2.128 → 2.324 Hz by √(kr/ms)/2π [calc, python].
+    const ride = table.locator('tbody tr').filter({ hasText: /^ride frequency/ });
+    await expect(ride.textContent()).resolves.toMatch(/2\.13 Hz.*2\.32 Hz/);
+    expect(
+      await table
+        .locator('td[data-verdict="better"], td[data-verdict="worse"], td[data-verdict="same"]')
+        .count(),
+    ).toBeGreaterThan(5);
+    const plot = page.locator('[data-plot="compare-frf-body-accel-FL"]');
+    await plot.waitFor();
+    const legend = await plot.locator('.recharts-legend-item-text').allTextContents();
+    expect(legend).toEqual(
+      expect.arrayContaining([
+        expect.stringMatching(/Test hatch #5 #1/),
+        expect.stringMatching(/Test hatch #5 #2/),
+      ]),
+    );
+    await page.getByRole('note', { name: 'Caution' }).first().waitFor();
+    await shot('05-compare');
+  });
+
+  it('exports a plot’s data as CSV', async () => {
+    const plot = page.locator('[data-plot="compare-frf-body-accel-FL"]');
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      plot.getByRole('button', { name: 'Save data (CSV)' }).click(),
+    ]);
+    expect(download.suggestedFilename()).toBe('compare-frf-body-accel-FL.csv');
+    const path = await download.path();
+    const text = readFileSync(path, 'utf8');
+    const [header, first] = text.split(/\r?\n/);
+    expect(header).toMatch(/Test hatch #5 #1/);
+    expect(header).toMatch(/frequency/);
+    expect(first?.split(',').length).toBeGreaterThanOrEqual(4);
+  });
+
+  it('ranks the demo damper’s clicks with the caution beside the recommendation', async () => {
+    await page.getByRole('navigation', { name: 'Screens' }).getByRole('button', { name: 'Valving' }).click();
+    await page.getByLabel('Vehicle').selectOption('Millbrook coupe #27');
+    await page.getByTestId('heat-map').waitFor();
+    await expect(page.getByTestId('heat-map').locator('tbody tr').count()).resolves.toBe(5);
+    for (const p of ['FR', 'RL', 'RR']) await page.getByRole('checkbox', { name: p, exact: true }).uncheck();
+    await page.getByRole('button', { name: 'Find the best clicks' }).click();
+    const rec = page.getByTestId('recommendation');
+    await rec.waitFor({ timeout: 30_000 });
+    await expect(
+      rec.getByRole('note', { name: 'Caution beside the recommendation' }).textContent(),
+    ).resolves.toMatch(/qualified vehicle or suspension engineer.*make one change at a time/);
+    await expect(rec.locator('summary').first().textContent()).resolves.toMatch(
+      /^#1: bump \d+, rebound \d+ — meets \d+ of \d+ checks/,
+    );
+    await shot('06-valving');
   });
 
   it('raised no error in the page', () => {
