@@ -137,7 +137,30 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     await shot('04-diff');
   });
 
+  it('keeps unsaved changes through a reload and offers them back', async () => {
+    await page.getByRole('button', { name: /New revision from #2/ }).click();
+    const card = page.getByRole('group', { name: /\(RR\)$/ });
+    await card.getByLabel('Ride height').fill('4.25');
+    await page.getByRole('heading', { name: /• unsaved/ }).waitFor();
+    await page.waitForTimeout(1200); // the draft is written a moment after the last change
+    await page.reload();
+    await page.getByRole('button', { name: /Test hatch #5/ }).click();
+    await page.getByRole('button', { name: /New revision from #2/ }).click();
+    await page.getByRole('button', { name: 'Restore them' }).click();
+    await expect(
+      page
+        .getByRole('group', { name: /\(RR\)$/ })
+        .getByLabel('Ride height')
+        .inputValue(),
+    ).resolves.toBe('4.25');
+    await page.getByRole('navigation', { name: 'Screens' }).getByRole('button', { name: 'Vehicles' }).click();
+    await page.getByRole('button', { name: /Test hatch #5/ }).click();
+  });
+
   it('compares the two revisions with overlaid plots and a delta table', async () => {
+    // Picks belong to the page: the reload above cleared them.
+    await page.getByLabel('pick #1').check();
+    await page.getByLabel('pick #2').check();
     await page.getByRole('button', { name: /Compare picked \(2\)/ }).click();
     const table = page.getByTestId('compare-table');
     await table.waitFor();
