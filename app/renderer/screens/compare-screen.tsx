@@ -3,7 +3,7 @@ import { cornerQuarterCar } from '../../../core/corner';
 import { eventBump } from '../../../core/event';
 import { frequencyResponseGrid, frequencyResponseMagnitudeAt } from '../../../core/frequency-response';
 import { setupFileParse } from '../../../core/setup-file';
-import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../../../core/setup-sheet';
+import type { CornerPosition, SetupSheet } from '../../../core/setup-sheet';
 import { eventSimulate } from '../../../core/simulate';
 import {
   quantityFormat,
@@ -22,6 +22,7 @@ import type { ValvingTargets } from '../../../core/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
+import { CornerChoice, PresetChoice } from '../components/choices';
 import { CautionLine, WarningList } from '../components/caution';
 import { LinePlot, type PlotSeries } from '../components/plot';
 import { RevisionPicker } from '../components/revision-pick';
@@ -203,28 +204,13 @@ export function CompareScreen() {
         <p>Pick two to four revisions: here, or with “pick” in a vehicle’s history.</p>
       ) : null}
       <div className="toolbar">
-        <label htmlFor={`${id}-preset`}>Judged on</label>
-        <select id={`${id}-preset`} value={preset} onChange={(e) => setPreset(e.target.value)}>
-          {(presets?.presets ?? []).map((p) => (
-            <option key={p.name} value={p.name}>
-              {p.title}
-            </option>
-          ))}
-        </select>
-        <fieldset className="toolbar" style={{ border: 0, padding: 0, margin: 0 }}>
-          <legend style={{ float: 'left', marginRight: 6 }}>Corner</legend>
-          {CORNER_POSITIONS.map((p) => (
-            <label key={p}>
-              <input
-                type="radio"
-                name={`${id}-corner`}
-                checked={position === p}
-                onChange={() => setPosition(p)}
-              />{' '}
-              {p}
-            </label>
-          ))}
-        </fieldset>
+        <PresetChoice
+          label="Judged on"
+          value={preset}
+          presets={presets?.presets ?? []}
+          onChange={setPreset}
+        />
+        <CornerChoice value={position} onChange={setPosition} />
       </div>
       {scenario ? (
         <p className="muted">

@@ -15,6 +15,7 @@ import type { ValvingTargetKey } from '../../../core/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall, apiJob, ApiCallError, type JobProgress } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
+import { CornerChoice, PresetChoice } from '../components/choices';
 import { CautionLine, WarningList } from '../components/caution';
 import { RevisionPicker } from '../components/revision-pick';
 import { ErrorLine, ProgressLine } from '../components/status';
@@ -373,20 +374,7 @@ export function ValvingScreen() {
       </div>
       <h3>Damping map</h3>
       <div className="toolbar">
-        <fieldset className="toolbar" style={{ border: 0, padding: 0, margin: 0 }}>
-          <legend style={{ float: 'left', marginRight: 6 }}>Corner</legend>
-          {CORNER_POSITIONS.map((p) => (
-            <label key={p}>
-              <input
-                type="radio"
-                name={`${id}-map-corner`}
-                checked={mapCorner === p}
-                onChange={() => setMapCorner(p)}
-              />{' '}
-              {p}
-            </label>
-          ))}
-        </fieldset>
+        <CornerChoice value={mapCorner} onChange={setMapCorner} />
         <label htmlFor={`${id}-figure`}>Figure</label>
         <select
           id={`${id}-figure`}
@@ -410,14 +398,7 @@ export function ValvingScreen() {
       ) : null}
       <h3>Targets</h3>
       <div className="toolbar">
-        <label htmlFor={`${id}-preset`}>Preset</label>
-        <select id={`${id}-preset`} value={preset} onChange={(e) => setPreset(e.target.value)}>
-          {(presets?.presets ?? []).map((p) => (
-            <option key={p.name} value={p.name}>
-              {p.title}
-            </option>
-          ))}
-        </select>
+        <PresetChoice label="Preset" value={preset} presets={presets?.presets ?? []} onChange={setPreset} />
         {presetData ? <span className="muted">{presetData.use}</span> : null}
       </div>
       <table className="figures" aria-label="Targets">
