@@ -1,5 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { testCorner } from './test-corner';
 import {
   CRITICAL_DAMPING_TOLERANCE,
   cornerQuarterCar,
@@ -12,23 +13,7 @@ import {
 } from '../../core/corner';
 import { InputError } from '../../core/input-error';
 
-/** An invented corner for the tests (not from any source). */
-function corner(over: Partial<CornerInput> = {}): CornerInput {
-  return {
-    cornerMass: 300,
-    unsprungMass: 40,
-    springRate: 60_000,
-    springMotionRatio: 0.8,
-    damperMotionRatio: 0.8,
-    tireRate: 250_000,
-    tireDamping: 0,
-    damper: {
-      bump: { kind: 'bilinear', lowSpeed: 3000, kneeSpeed: 0.1, highSpeed: 1000 },
-      rebound: { kind: 'bilinear', lowSpeed: 5000, kneeSpeed: 0.1, highSpeed: 1800 },
-    },
-    ...over,
-  };
-}
+const corner = testCorner;
 
 describe('wheel rate, ride rate, ride frequency', () => {
   it('reproduces the worked front and rear ride-frequency example', () => {

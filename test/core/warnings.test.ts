@@ -1,25 +1,10 @@
 import { describe, expect, it } from 'vitest';
+import { testCorner } from './test-corner';
 import { cornerRideFigures, type CornerInput } from '../../core/corner';
 import { cornerAnalyze } from '../../core/corner-analysis';
 import { WARNING_BANDS, cornerWarnings } from '../../core/warnings';
 
-/** An invented corner that raises no warning. */
-function corner(over: Partial<CornerInput> = {}): CornerInput {
-  return {
-    cornerMass: 300,
-    unsprungMass: 40,
-    springRate: 60_000,
-    springMotionRatio: 0.8,
-    damperMotionRatio: 0.8,
-    tireRate: 250_000,
-    tireDamping: 0,
-    damper: {
-      bump: { kind: 'bilinear', lowSpeed: 3000, kneeSpeed: 0.1, highSpeed: 1000 },
-      rebound: { kind: 'bilinear', lowSpeed: 5000, kneeSpeed: 0.1, highSpeed: 1800 },
-    },
-    ...over,
-  };
-}
+const corner = testCorner;
 const codes = (c: CornerInput) => cornerAnalyze({ name: '', corner: c }).warnings.map((w) => w.code);
 const linear = (bump: number, rebound: number): CornerInput['damper'] => ({
   bump: { kind: 'linear', coefficient: bump },
