@@ -3,6 +3,7 @@ import { cornerQuarterCar, cornerRideFigures, type CornerFigures } from '../../.
 import { modesOf, type Modes } from '../../../core/modal';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
 import { numberFormat, quantityFormat } from '../../../core/units';
+import { VALVING_FLAT_RIDE } from '../../../core/valving-rank';
 import { cornerWarnings, type ModelWarning } from '../../../core/warnings';
 import { apiCall } from '../api-client';
 import { useApp } from '../app-context';
@@ -33,7 +34,7 @@ const CORNER_NAMES: Record<CornerPosition, string> = {
 };
 
 /** The usual flat-ride choice: rear ride frequency 10–20 % above the front [trade]. */
-const FLAT_RIDE = { low: 1.1, high: 1.2 };
+const FLAT_RIDE = VALVING_FLAT_RIDE;
 
 type Draft = { form: SetupForm; basedOnRevision?: number; at: string };
 const draftKey = (vehicle: string) => `draft:${vehicle}`;
