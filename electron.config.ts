@@ -1,6 +1,6 @@
 /**
- * Desktop window, security and packaging settings, read by Electron main and the packager.
- * Until the desktop shell lands, this holds the window and security defaults it must use.
+ * Desktop window, security and packaging settings, read by Electron main (app/main/desktop.ts)
+ * and by the packager on a machine that can download Electron.
  */
 export const electronConfig = {
   appId: 'app.rideledger.desktop',
@@ -35,6 +35,20 @@ export const electronConfig = {
     "frame-ancestors 'none'",
     "form-action 'none'",
   ].join('; '),
+  /**
+   * Packaging for distribution, done on a connected machine: the packager rebuilds the native
+   * SQLite module for Electron's Node and runs the backend as an Electron utility process. The
+   * backend finds its migrations and the demo shop beside its sources, so they ship as files.
+   */
+  packaging: {
+    main: 'dist/desktop/main.cjs',
+    files: ['dist/**', 'app/**', 'core/**', 'db/**', 'electron.config.ts', 'package.json'],
+    extraFiles: ['db/migrations/**', 'assets/demo/**'],
+    nativeModules: ['better-sqlite3'],
+    /** Native modules stay outside the archive, where the utility process can load them. */
+    asarUnpack: ['node_modules/better-sqlite3/**'],
+    targets: { linux: ['AppImage', 'deb'], mac: ['dmg'], win: ['nsis'] },
+  },
 } as const;
 
 export type ElectronConfig = typeof electronConfig;
