@@ -137,6 +137,28 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     await shot('04-diff');
   });
 
+  it('prints the setup sheet: every corner field and the headline figures, no inputs', async () => {
+    await page.getByRole('button', { name: /New revision from #2/ }).click();
+    await page.getByRole('group', { name: /\(RR\)$/ }).waitFor();
+    // The browser's print dialog is replaced by a note that it was asked for.
+    await page.evaluate(() => {
+      (window as unknown as { printed: number }).printed = 0;
+      window.print = () => void ((window as unknown as { printed: number }).printed += 1);
+    });
+    await page.getByRole('button', { name: 'Print sheet / PDF' }).click();
+    const sheet = page.getByRole('region', { name: 'Setup sheet for printing' });
+    await sheet.waitFor();
+    await expect(sheet.locator('input').count()).resolves.toBe(0);
+    await expect(sheet.getByRole('row', { name: /Spring rate \(lbf\/in\)/ }).textContent()).resolves.toMatch(
+      /500.*500.*450.*450/,
+    );
+    await shot('05-print-sheet');
+    await page.getByRole('group', { name: /\(RR\)$/ }).waitFor();
+    expect(await page.evaluate(() => (window as unknown as { printed: number }).printed)).toBe(1);
+    await page.getByRole('navigation', { name: 'Screens' }).getByRole('button', { name: 'Vehicles' }).click();
+    await page.getByRole('button', { name: /Test hatch #5/ }).click();
+  });
+
   it('keeps unsaved changes through a reload and offers them back', async () => {
     await page.getByRole('button', { name: /New revision from #2/ }).click();
     const card = page.getByRole('group', { name: /\(RR\)$/ });
