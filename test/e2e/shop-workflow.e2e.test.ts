@@ -149,6 +149,7 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     const sheet = page.getByRole('region', { name: 'Setup sheet for printing' });
     await sheet.waitFor();
     await expect(sheet.locator('input').count()).resolves.toBe(0);
+    await sheet.getByText(/qualified vehicle or suspension engineer/).waitFor();
     await expect(sheet.getByRole('row', { name: /Spring rate \(lbf\/in\)/ }).textContent()).resolves.toMatch(
       /500.*500.*450.*450/,
     );

@@ -1,4 +1,5 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { CAUTION_TEXT } from '../../../core/caution';
 import { cornerQuarterCar, cornerRideFigures, type CornerFigures } from '../../../core/corner';
 import { modesOf, type Modes } from '../../../core/modal';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
@@ -221,6 +222,7 @@ function PrintSheet(props: { form: SetupForm; vehicle: string; live: Record<Corn
           </tr>
         </tbody>
       </table>
+      <p className="muted">Figures from RideLedger’s simplified model. {CAUTION_TEXT}</p>
     </section>
   );
 }
