@@ -154,14 +154,19 @@ const NUMBER_ONLY = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
 /** Typographic characters people paste from data sheets, mapped to what mathjs reads. */
 function unitTextNormalise(text: string): string {
-  return text
-    .trim()
-    .replace(/[·⋅•×]/g, '*')
-    .replace(/\u2212/g, '-')
-    .replace(/²/g, '^2')
-    .replace(/°C/g, 'degC')
-    .replace(/°F/g, 'degF')
-    .replace(/°/g, 'deg');
+  return (
+    text
+      .trim()
+      .replace(/[·⋅•×]/g, '*')
+      .replace(/\u2212/g, '-')
+      .replace(/²/g, '^2')
+      .replace(/°C/g, 'degC')
+      .replace(/°F/g, 'degF')
+      .replace(/°/g, 'deg')
+      // Speeds as people write them; mathjs spells them mi/h and km/h.
+      .replace(/\bmph\b/g, 'mi/h')
+      .replace(/\bkph\b/g, 'km/h')
+  );
 }
 
 function kindOfUnit(u: Unit): QuantityKind | undefined {

@@ -32,6 +32,8 @@ describe('quantityParse', () => {
     ['1.5 in', 'length', 1.5 * IN],
     ['-2.5 deg', 'angle', (-2.5 * Math.PI) / 180],
     ['250 ms', 'time', 0.25],
+    ['30 mph', 'speed', (30 * 1609.344) / 3600],
+    ['50 kph', 'speed', 50 / 3.6],
   ];
   for (const [text, kind, si] of cases) {
     it(`reads "${text}" as ${si} SI`, () => {
