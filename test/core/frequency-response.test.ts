@@ -93,6 +93,16 @@ describe('frequencyResponseAt against the base-excitation worked examples', () =
   });
 });
 
+/** A 250 kg / 35 kg corner on a 160 kN/m tyre with any suspension: the invariant points do not move. */
+const invariantCorner = (ks: number, cs: number): QuarterCarLinear => ({
+  sprungMass: 250,
+  unsprungMass: 35,
+  wheelRate: ks,
+  wheelDamping: cs,
+  tireRate: 160_000,
+  tireDamping: 0,
+});
+
 describe('invariant points of the quarter car', () => {
   // Hedrick & Butsuen 1990, "Invariant properties of automotive suspensions", Proc. IMechE Part D 204 [pub].
   it('body acceleration per road displacement is kt/ms at ω = √(kt/mu), whatever the suspension (property)', () => {
@@ -101,14 +111,7 @@ describe('invariant points of the quarter car', () => {
         fc.double({ min: 5e3, max: 2e5, noNaN: true }),
         fc.double({ min: 0, max: 2e4, noNaN: true }),
         (ks, cs) => {
-          const q: QuarterCarLinear = {
-            sprungMass: 250,
-            unsprungMass: 35,
-            wheelRate: ks,
-            wheelDamping: cs,
-            tireRate: 160_000,
-            tireDamping: 0,
-          };
+          const q = invariantCorner(ks, cs);
           const f = Math.sqrt(160_000 / 35) / (2 * Math.PI);
           return Math.abs(abs(frequencyResponseAt(q, f).bodyAccel) / (160_000 / 250) - 1) < 1e-9;
         },
@@ -122,14 +125,7 @@ describe('invariant points of the quarter car', () => {
         fc.double({ min: 5e3, max: 2e5, noNaN: true }),
         fc.double({ min: 0, max: 2e4, noNaN: true }),
         (ks, cs) => {
-          const q: QuarterCarLinear = {
-            sprungMass: 250,
-            unsprungMass: 35,
-            wheelRate: ks,
-            wheelDamping: cs,
-            tireRate: 160_000,
-            tireDamping: 0,
-          };
+          const q = invariantCorner(ks, cs);
           const f = Math.sqrt(160_000 / 285) / (2 * Math.PI);
           return Math.abs(abs(frequencyResponseAt(q, f).travel) / (285 / 250) - 1) < 1e-9;
         },
