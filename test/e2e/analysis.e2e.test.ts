@@ -88,7 +88,9 @@ describe.skipIf(!chromium)('Ride figures, in Chromium against the served app', (
     );
     expect(await page.locator('figure[data-plot="frf-body-accel"]').innerText()).toContain('Frequency (Hz)');
     // Four corners, each with a bar labelled by its value.
-    expect(await page.locator('figure[data-plot="road-travel"] .recharts-bar-rectangle').count()).toBe(4);
+    await expect
+      .poll(() => page.locator('figure[data-plot="road-travel"] .recharts-bar-rectangle').count())
+      .toBe(4);
   });
 
   it('works the figures out again for another road class, and the RMS scales as ISO 8608 says', async () => {

@@ -64,9 +64,9 @@ describe.skipIf(!chromium)('Dampers, in Chromium against the served app', () => 
       'Shaft velocity, compression + (m/s)',
     );
     // Markers for the measured points: one symbol a point of each run shown (22 a run).
-    expect(await page.locator('figure[data-plot^="force-velocity"] .recharts-scatter-symbol').count()).toBe(
-      5 * 22,
-    );
+    await expect
+      .poll(() => page.locator('figure[data-plot^="force-velocity"] .recharts-scatter-symbol').count())
+      .toBe(5 * 22);
     await screenshotSave(page, 'dampers-si');
   });
 

@@ -88,6 +88,8 @@ function HeatMap(props: {
       className="figures heat-map"
       aria-label={`${figure.label} over the clicks at ${map.position}`}
       data-testid="heat-map"
+      data-vehicle={map.vehicle.name}
+      data-revision={map.revision}
     >
       <caption style={{ textAlign: 'left', fontWeight: 700 }}>
         {figure.label} at {map.position} with {map.damper}: rows {ADJUSTER_WORDS[rows.adjuster]} clicks
@@ -264,6 +266,8 @@ export function ValvingScreen() {
 
   useEffect(() => {
     if (!pick) return;
+    // A newer choice replaces the map asked for before it, whichever answer comes back last.
+    let gone = false;
     setMap(null);
     apiCall('valvingMap', {
       vehicle: pick.vehicle,
@@ -271,7 +275,13 @@ export function ValvingScreen() {
       corner: mapCorner,
       interpolate,
       ...(damper ? { damper } : {}),
-    }).then(setMap, setError);
+    }).then(
+      (m) => !gone && setMap(m),
+      (e: unknown) => !gone && setError(e),
+    );
+    return () => {
+      gone = true;
+    };
   }, [pick, mapCorner, damper, interpolate, app.dataVersion]);
 
   const targetsEdit = useMemo(() => {

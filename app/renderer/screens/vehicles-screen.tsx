@@ -59,8 +59,15 @@ export function DiffView(props: { a: RevisionPick; b: RevisionPick }) {
   const [diff, setDiff] = useState<Diff | null>(null);
   const [error, setError] = useState<unknown>(null);
   useEffect(() => {
+    let gone = false;
     setDiff(null);
-    apiCall('setupDiff', { a: props.a, b: props.b, units }).then(setDiff, setError);
+    apiCall('setupDiff', { a: props.a, b: props.b, units }).then(
+      (d) => !gone && setDiff(d),
+      (e: unknown) => !gone && setError(e),
+    );
+    return () => {
+      gone = true;
+    };
   }, [props.a, props.b, units]);
   if (error) return <ErrorLine error={error} />;
   if (!diff) return <p>Working out the differences…</p>;
@@ -143,9 +150,16 @@ function Timeline(props: { vehicle: string }) {
   const [error, setError] = useState<unknown>(null);
   const [diff, setDiff] = useState<{ a: RevisionPick; b: RevisionPick } | null>(null);
   useEffect(() => {
+    let gone = false;
     setRevisions(null);
     setDiff(null);
-    apiCall('setupHistory', { vehicle: props.vehicle }).then((h) => setRevisions(h.revisions), setError);
+    apiCall('setupHistory', { vehicle: props.vehicle }).then(
+      (h) => !gone && setRevisions(h.revisions),
+      (e: unknown) => !gone && setError(e),
+    );
+    return () => {
+      gone = true;
+    };
   }, [props.vehicle, app.dataVersion]);
   const picks = app.comparePicks;
   const toggle = (p: RevisionPick) =>
