@@ -229,7 +229,7 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     // The map shown before the choice stays until the new vehicle's map replaces it.
     const heatMap = page.locator('[data-testid="heat-map"][data-vehicle="Millbrook coupe #27"]');
     await heatMap.waitFor();
-    await expect(heatMap.locator('tbody tr').count()).resolves.toBe(5);
+    await expect.poll(() => heatMap.locator('tbody tr').count()).toBe(5);
     for (const p of ['FR', 'RL', 'RR']) await page.getByRole('checkbox', { name: p, exact: true }).uncheck();
     await page.getByRole('button', { name: 'Find the best clicks' }).click();
     const rec = page.getByTestId('recommendation');

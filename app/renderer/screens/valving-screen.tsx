@@ -222,7 +222,8 @@ export function ValvingScreen() {
   const [preset, setPreset] = useState('track-day');
   const [edits, setEdits] = useState<Record<string, TargetEdit>>({});
   const [corners, setCorners] = useState<CornerPosition[]>([...CORNER_POSITIONS]);
-  const [dampers, setDampers] = useState<string[]>([]);
+  // null until the bench library has answered: the map waits for it, so it is asked for once.
+  const [dampers, setDampers] = useState<string[] | null>(null);
   const [damper, setDamper] = useState('');
   const [interpolate, setInterpolate] = useState(false);
   const [mapCorner, setMapCorner] = useState<CornerPosition>('FL');
@@ -264,14 +265,17 @@ export function ValvingScreen() {
     setEdits(next);
   }, [presetData, presets, app.units]);
 
+  const mapVehicle = pick?.vehicle;
+  const mapRevision = pick?.revision;
+  const dampersKnown = dampers !== null;
   useEffect(() => {
-    if (!pick) return;
+    if (mapVehicle === undefined || mapRevision === undefined || !dampersKnown) return;
     // A newer choice replaces the map asked for before it, whichever answer comes back last.
     let gone = false;
     setMap(null);
     apiCall('valvingMap', {
-      vehicle: pick.vehicle,
-      revision: pick.revision,
+      vehicle: mapVehicle,
+      revision: mapRevision,
       corner: mapCorner,
       interpolate,
       ...(damper ? { damper } : {}),
@@ -282,7 +286,7 @@ export function ValvingScreen() {
     return () => {
       gone = true;
     };
-  }, [pick, mapCorner, damper, interpolate, app.dataVersion]);
+  }, [mapVehicle, mapRevision, dampersKnown, mapCorner, damper, interpolate, app.dataVersion]);
 
   const targetsEdit = useMemo(() => {
     const targets: Record<string, unknown> = {};
@@ -371,7 +375,7 @@ export function ValvingScreen() {
         <label htmlFor={`${id}-damper`}>Damper</label>
         <select id={`${id}-damper`} value={damper} onChange={(e) => setDamper(e.target.value)}>
           <option value="">each corner’s recorded unit</option>
-          {dampers.map((d) => (
+          {(dampers ?? []).map((d) => (
             <option key={d} value={d}>
               {d}
             </option>
