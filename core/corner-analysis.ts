@@ -1,3 +1,4 @@
+import type { UnitSystem } from './units';
 import { cornerQuarterCar, cornerRideFigures, type CornerFigures, type QuarterCarLinear } from './corner';
 import type { CornerFile } from './corner-file';
 import { eventBump, type RoadEvent } from './event';
@@ -37,8 +38,9 @@ export type CornerAnalysis = {
  */
 export function cornerAnalyze(
   file: CornerFile,
-  options: { frequencies?: readonly number[] } = {},
+  options: { frequencies?: readonly number[]; units?: UnitSystem } = {},
 ): CornerAnalysis {
+  const units = options.units ?? 'si';
   const figures = cornerRideFigures(file.corner);
   const quarterCar = cornerQuarterCar(file.corner);
   const modes = modesOf(quarterCar);
@@ -53,14 +55,14 @@ export function cornerAnalyze(
       frequencyResponseMagnitudeAt(quarterCar, f),
     ),
     step,
-    warnings: cornerWarnings(figures, modes, step),
+    warnings: cornerWarnings(figures, modes, step, units),
   };
   if (file.road) analysis.randomRoad = randomRoadResponse(quarterCar, file.road);
   if (file.bump) {
     const event = eventBump(file.bump);
     const metrics = eventSimulate(file.corner, event).metrics;
     analysis.bump = { event, metrics };
-    analysis.warnings.push(...eventWarnings(file.corner, event, metrics));
+    analysis.warnings.push(...eventWarnings(file.corner, event, metrics, units));
   }
   return analysis;
 }

@@ -1,7 +1,7 @@
 import type { BumpSpec } from './corner-file';
 import { InputError, inputFieldPath } from './input-error';
 import { roadBump, roadCurb, roadPothole, roadStep, type CurbSpec, type RoadProfile } from './road';
-import { quantityFormat } from './units';
+import { quantityFormat, type UnitSystem } from './units';
 
 /** The event window of DESIGN.md: every event starts at rest in static equilibrium and runs 1.5 s. */
 export const EVENT_DURATION = 1.5;
@@ -18,8 +18,10 @@ export type EventKind = 'bump' | 'step' | 'curb' | 'pothole' | 'road';
  */
 export type RoadEvent = {
   kind: EventKind;
-  /** Words for messages, e.g. "the 25.0 mm bump at 50.4 km/h". */
+  /** Words for messages in SI, e.g. "the 25.0 mm bump at 50.4 km/h"; `eventLabel` writes them in either system. */
   label: string;
+  /** The sizes the words name (m): the height (a pothole's depth) and, for a bump, its length. */
+  sizes?: { height: number; length?: number };
   road: RoadProfile;
   /** Speed over the road (m/s). */
   speed: number;
@@ -43,43 +45,73 @@ function speedCheck(speed: number, field: string): void {
   }
 }
 
-const mm = (v: number) => quantityFormat(v, 'length', 'si');
-const kmh = (v: number) => quantityFormat(v, 'speed', 'si');
+/** An event's words in `units`, e.g. "the 25.0 mm bump, 1500 mm long, at 50.4 km/h" or "the 0.98 in bump, …". */
+export function eventLabel(
+  event: Pick<RoadEvent, 'kind' | 'label' | 'sizes' | 'speed'>,
+  units: UnitSystem,
+): string {
+  const s = event.sizes;
+  if (!s) return event.label;
+  const size = (v: number) => quantityFormat(v, 'length', units);
+  const at = quantityFormat(event.speed, 'speed', units);
+  switch (event.kind) {
+    case 'bump': {
+      const long =
+        s.length === undefined
+          ? ''
+          : `, ${quantityFormat(s.length, 'length', units, units === 'si' ? { decimals: 0 } : {})} long`;
+      return `the ${size(s.height)} bump${long}, at ${at}`;
+    }
+    case 'step':
+      return `the ${size(s.height)} step at ${at}`;
+    case 'curb':
+      return `the ${size(s.height)} curb at ${at}`;
+    case 'pothole':
+      return `the ${size(s.height)} deep pothole at ${at}`;
+    case 'road':
+      return event.label;
+  }
+}
+
+/** An event of `kind` with its SI words made from its sizes. */
+function eventNamed<E extends Omit<RoadEvent, 'label'>>(e: E): E & { label: string } {
+  return { ...e, label: eventLabel({ ...e, label: '' }, 'si') };
+}
 
 /** The file's (1−cos) bump (DESIGN.md): height, length, speed. */
 export function eventBump(spec: BumpSpec, field = 'bump'): RoadEvent {
   speedCheck(spec.speed, field);
-  return {
+  return eventNamed({
     kind: 'bump',
-    label: `the ${mm(spec.height)} bump, ${quantityFormat(spec.length, 'length', 'si', { decimals: 0 })} long, at ${kmh(spec.speed)}`,
+    sizes: { height: spec.height, length: spec.length },
     road: roadBump(spec.height, spec.length, field),
     speed: spec.speed,
     settle: { target: 0, band: EVENT_SETTLING_BAND * Math.abs(spec.height) },
-  };
+  });
 }
 
 /** A road step of `height` rising over `rise` (m), at `speed` (m/s). */
 export function eventStep(spec: { height: number; rise: number; speed: number }, field = 'step'): RoadEvent {
   speedCheck(spec.speed, field);
-  return {
+  return eventNamed({
     kind: 'step',
-    label: `the ${mm(spec.height)} step at ${kmh(spec.speed)}`,
+    sizes: { height: spec.height },
     road: roadStep(spec.height, spec.rise, field),
     speed: spec.speed,
     settle: { target: spec.height, band: EVENT_SETTLING_BAND * Math.abs(spec.height) },
-  };
+  });
 }
 
 /** A curb strike (ramp, top, drop) at `speed` (m/s). */
 export function eventCurb(spec: CurbSpec & { speed: number }, field = 'curb'): RoadEvent {
   speedCheck(spec.speed, field);
-  return {
+  return eventNamed({
     kind: 'curb',
-    label: `the ${mm(spec.height)} curb at ${kmh(spec.speed)}`,
+    sizes: { height: spec.height },
     road: roadCurb(spec, field),
     speed: spec.speed,
     settle: { target: 0, band: EVENT_SETTLING_BAND * spec.height },
-  };
+  });
 }
 
 /** A (1−cos) pothole of `depth` over `length` (m) at `speed` (m/s). */
@@ -88,13 +120,13 @@ export function eventPothole(
   field = 'pothole',
 ): RoadEvent {
   speedCheck(spec.speed, field);
-  return {
+  return eventNamed({
     kind: 'pothole',
-    label: `the ${mm(spec.depth)} deep pothole at ${kmh(spec.speed)}`,
+    sizes: { height: spec.depth },
     road: roadPothole(spec.depth, spec.length, field),
     speed: spec.speed,
     settle: { target: 0, band: EVENT_SETTLING_BAND * spec.depth },
-  };
+  });
 }
 
 /** Any road (a generated or measured profile) at `speed` (m/s); it has no settling target. */

@@ -1,3 +1,4 @@
+import type { UnitSystem } from './units';
 import type { ClickSettings } from './click-settings';
 import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from './setup-sheet';
 import {
@@ -58,6 +59,7 @@ export function valvingCompare(
   b: SetupSheet,
   scenario: ValvingScenario,
   targets: ValvingTargets,
+  units: UnitSystem = 'si',
 ): ValvingCompare {
   const events = valvingEventsOf(scenario);
   const figuresOf = (s: SetupSheet) =>
@@ -74,7 +76,7 @@ export function valvingCompare(
       clicks: corner.clicks,
       headline: valvingHeadlineOf(f),
       score: valvingScoreOf(f, targets),
-      warnings: valvingWarningsOf(corner.analysis, corner.analysis.damper, f, events),
+      warnings: valvingWarningsOf(corner.analysis, corner.analysis.damper, f, events, units),
     };
   };
   const corners = CORNER_POSITIONS.map((p, i) => {

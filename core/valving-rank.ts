@@ -2,7 +2,7 @@ import type { ClickAdjuster, ClickSettings } from './click-settings';
 import { cornerQuarterCar, cornerRideFigures, type CornerInput } from './corner';
 import { eventWarnings } from './event-warnings';
 import { modesOf } from './modal';
-import type { QuantityKind } from './units';
+import type { QuantityKind, UnitSystem } from './units';
 import {
   valvingEventsOf,
   type ValvingDamper,
@@ -159,12 +159,13 @@ export function valvingWarningsOf(
   damper: ValvingDamper,
   figures: ValvingFigures,
   events: ValvingEvents,
+  units: UnitSystem = 'si',
 ): ModelWarning[] {
   const c = valvingCornerWith(corner, damper);
   return [
-    ...cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c))),
-    ...eventWarnings(c, events.bump, figures.bump),
-    ...eventWarnings(c, events.curb, figures.curb),
+    ...cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c)), undefined, units),
+    ...eventWarnings(c, events.bump, figures.bump, units),
+    ...eventWarnings(c, events.curb, figures.curb, units),
   ];
 }
 
@@ -300,7 +301,7 @@ export function valvingRank(
   curves: Pick<ValvingCurves, 'axes' | 'cells'>,
   figures: readonly (readonly ValvingFigures[])[],
   targets: ValvingTargets,
-  options: { best?: number; current?: readonly (ClickSettings | null)[] } = {},
+  options: { best?: number; current?: readonly (ClickSettings | null)[]; units?: UnitSystem } = {},
 ): ValvingRanking {
   const events = valvingEventsOf(job.scenario);
   const bestCount = Math.max(1, Math.floor(options.best ?? 3));
@@ -342,7 +343,7 @@ export function valvingRank(
         ...(scores[cell] as ValvingScore),
         headline,
         sensitivity,
-        warnings: valvingWarningsOf(corner.corner, c.damper, f, events),
+        warnings: valvingWarningsOf(corner.corner, c.damper, f, events, options.units),
       };
     };
     const now = options.current?.[k];

@@ -1,6 +1,7 @@
 import type { CornerFigures } from './corner';
 import type { Modes } from './modal';
-import type { StepResponse } from './step-response';
+import { STEP_HEIGHT, type StepResponse } from './step-response';
+import { quantityFormat, type UnitSystem } from './units';
 
 /**
  * A warning from the figures: a stable code for screens and tests, the field it concerns,
@@ -22,8 +23,14 @@ export const WARNING_BANDS = {
 
 const f2 = (x: number) => x.toFixed(2);
 
-/** Warnings from a corner's linear figures, modes and step response. */
-export function cornerWarnings(figures: CornerFigures, modes?: Modes, step?: StepResponse): ModelWarning[] {
+/** Warnings from a corner's linear figures, modes and step response; quantities written in `units`. */
+export function cornerWarnings(
+  figures: CornerFigures,
+  modes?: Modes,
+  step?: StepResponse,
+  units: UnitSystem = 'si',
+): ModelWarning[] {
+  const damping = (c: number) => quantityFormat(c, 'damping', units);
   const out: ModelWarning[] = [];
   const b = WARNING_BANDS;
   const ride = figures.rideFrequencyHz;
@@ -69,14 +76,14 @@ export function cornerWarnings(figures: CornerFigures, modes?: Modes, step?: Ste
     out.push({
       code: 'rebound-softer-than-bump',
       field: 'damper.rebound.lowSpeed',
-      message: `Low-speed rebound damping (${w.rebound.toFixed(0)} N·s/m at the wheel) is softer than bump (${w.bump.toFixed(0)} N·s/m): most setups run rebound stiffer, because bump damping passes road inputs into the body while rebound controls the body's return.`,
+      message: `Low-speed rebound damping (${damping(w.rebound)} at the wheel) is softer than bump (${damping(w.bump)}): most setups run rebound stiffer, because bump damping passes road inputs into the body while rebound controls the body's return.`,
     });
   }
   if (w.reboundHighSpeed < w.bumpHighSpeed) {
     out.push({
       code: 'rebound-softer-than-bump-high-speed',
       field: 'damper.rebound.highSpeed',
-      message: `High-speed rebound damping (${w.reboundHighSpeed.toFixed(0)} N·s/m at the wheel) is softer than bump (${w.bumpHighSpeed.toFixed(0)} N·s/m): check the valving and that bump and rebound are not swapped.`,
+      message: `High-speed rebound damping (${damping(w.reboundHighSpeed)} at the wheel) is softer than bump (${damping(w.bumpHighSpeed)}): check the valving and that bump and rebound are not swapped.`,
     });
   }
   const r = figures.unsprungRatio;
@@ -107,7 +114,7 @@ export function cornerWarnings(figures: CornerFigures, modes?: Modes, step?: Ste
     out.push({
       code: 'step-not-settled',
       field: 'damper',
-      message: `After a 10 mm road step the body has not settled within ${step.settlingTime.toFixed(0)} s: the damping is close to none.`,
+      message: `After a ${quantityFormat(STEP_HEIGHT, 'length', units)} road step the body has not settled within ${step.settlingTime.toFixed(0)} s: the damping is close to none.`,
     });
   }
   return out;

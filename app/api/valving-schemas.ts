@@ -4,7 +4,12 @@ import { ISO8608_CLASSES } from '../../core/random-road';
 import { VALVING_HEADLINE_KEYS } from '../../core/valving-rank';
 import { VALVING_TARGET_KEYS } from '../../core/valving-targets';
 import { warningSchema } from './schemas';
-import { clickSettingsSchema, cornerPositionSchema, revisionRefSchema } from './store-schemas';
+import {
+  clickSettingsSchema,
+  cornerPositionSchema,
+  revisionRefSchema,
+  unitSystemSchema,
+} from './store-schemas';
 
 /** Zod schemas of the valving handlers: damping maps, choices, track-day comparisons. */
 
@@ -218,6 +223,8 @@ export const valvingContract = {
       best: z.number().int().min(1).max(50).optional(),
       /** Worker threads (0: this thread only); one a core when left out. */
       threads: z.number().int().min(0).max(64).optional(),
+      /** The unit system the warnings are written in (the figures stay SI). */
+      units: unitSystemSchema,
     }),
     output: z.strictObject({
       vehicle: vehicleNamed,
@@ -256,6 +263,8 @@ export const valvingContract = {
       b: revisionRefSchema,
       preset: z.string().min(1, 'expected a preset name'),
       ...editsInput,
+      /** The unit system the warnings are written in (the figures stay SI). */
+      units: unitSystemSchema,
     }),
     output: z.strictObject({
       a: z.strictObject({ vehicle: z.string(), revision: z.number().int(), name: z.string() }),

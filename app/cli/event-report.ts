@@ -1,4 +1,4 @@
-import type { RoadEvent } from '../../core/event';
+import { eventLabel, type RoadEvent } from '../../core/event';
 import type { EventMetrics } from '../../core/metrics';
 import { numberFormat, quantityFormat, type UnitSystem } from '../../core/units';
 import { tableFormat } from './table';
@@ -14,7 +14,7 @@ export function eventMetricsLines(event: RoadEvent, m: EventMetrics, system: Uni
         ? `${numberFormat(m.settlingTime, 3)} s`
         : `not settled in ${numberFormat(m.duration, 1)} s`;
   return [
-    `Event: ${event.label} (nonlinear quarter car, ${numberFormat(m.duration, 1)} s from rest)`,
+    `Event: ${eventLabel(event, system)} (nonlinear quarter car, ${numberFormat(m.duration, 1)} s from rest)`,
     tableFormat([
       [
         'peak body acceleration',

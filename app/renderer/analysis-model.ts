@@ -20,7 +20,7 @@ import {
   type QuantityKind,
   type UnitSystem,
 } from '../../core/units';
-import type { ModelWarning } from '../../core/warnings';
+import { cornerWarnings, type ModelWarning } from '../../core/warnings';
 import type { BarSeries, PlotSeries } from './components/plot-data';
 import { quantityDisplayFactor, quantityFieldConvert, quantityFieldValue } from './quantity-field';
 
@@ -166,10 +166,8 @@ export type CornerResult = {
   step: StepResponse;
   randomRoad: RandomRoadResponse;
   bump: EventMetrics;
-  /** Words for the bump, e.g. "the 25.0 mm bump, 500 mm long, at 50.0 km/h". */
-  bumpLabel: string;
-  /** core's corner warnings (figures, modes, step) and the bump event's. */
-  warnings: ModelWarning[];
+  /** core's corner warnings (figures, modes, step) and the bump event's, written in each unit system. */
+  warnings: Record<UnitSystem, ModelWarning[]>;
   stepHistory: ResponseHistory;
   bumpHistory: ResponseHistory;
   frf: FrequencyResponseMagnitude[];
@@ -230,8 +228,14 @@ export function setupAnalyze(
       step: linear.step,
       randomRoad: linear.randomRoad as RandomRoadResponse,
       bump: sim.metrics,
-      bumpLabel: event.label,
-      warnings: [...linear.warnings, ...eventWarnings(corner, event, sim.metrics)],
+      // Both systems now, so the units switch rewrites the words without running anything again.
+      warnings: {
+        si: [...linear.warnings, ...eventWarnings(corner, event, sim.metrics, 'si')],
+        us: [
+          ...cornerWarnings(linear.figures, linear.modes, linear.step, 'us'),
+          ...eventWarnings(corner, event, sim.metrics, 'us'),
+        ],
+      },
       bumpHistory: { time: h.time, bodyAccel: h.bodyAccel, travel: h.travel, tireLoad: h.tireLoad },
       frf: linear.frf,
     };
@@ -447,7 +451,7 @@ export function analysisFigureGroups(result: AnalysisResult, system: UnitSystem)
       for (const p of CORNER_POSITIONS) {
         const c = result.corners[p];
         cells[p] = spec.text(c, system);
-        warnings[p] = c.warnings.filter((w) => codeMatches(spec.codes, w.code));
+        warnings[p] = c.warnings[system].filter((w) => codeMatches(spec.codes, w.code));
       }
       return { key: spec.key, label: spec.label, cells, warnings };
     }),

@@ -241,6 +241,24 @@ describe('valving handlers on the demo shop', () => {
     expect(out.valvingCaution).toBe(VALVING_CAUTION_TEXT);
     expect(out.balance.a?.ratio.rideFrequency).toBeGreaterThan(0);
     expect(out.corners.some((c) => c.b.warnings.length > 0)).toBe(true);
+    // The same comparison asked for in US units: the same warnings, their quantities in US words.
+    const us = await apiCall(
+      'setupCompare',
+      {
+        a: { vehicle: COUPE, revision: 1 },
+        b: { vehicle: COUPE },
+        preset: 'track-day',
+        scenario: { road: { class: 'C', speed: '120 km/h' } },
+        units: 'us',
+      },
+      ctx,
+    );
+    expect(us.corners).toHaveLength(4);
+    const words = (o: typeof out) => o.corners.flatMap((c) => [...c.a.warnings, ...c.b.warnings]);
+    expect(words(us).map((w) => w.code)).toEqual(words(out).map((w) => w.code));
+    expect(words(us).some((w) => / (in|lbf|mph)\b/.test(w.message))).toBe(true);
+    for (const w of words(us)) expect(w.message).not.toMatch(/\d (mm|N|km\/h)\b/);
+    expect(us.corners.map((c) => c.b.headline)).toEqual(out.corners.map((c) => c.b.headline));
     await expect(
       apiCall(
         'setupCompare',

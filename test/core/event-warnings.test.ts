@@ -70,6 +70,32 @@ describe('eventWarnings', () => {
     expect(w[4]?.message).toMatch(/0\.800 m\/s in bump, past the last point of its curve \(0\.500 m\/s\)/);
   });
 
+  it('writes every quantity, the event’s own words included, in the unit system asked for', () => {
+    const m: EventMetrics = {
+      ...QUIET,
+      airborneTime: 0.021,
+      bumpStopContactTime: 0.012,
+      bumpStopPeakForce: 2300,
+      maxCompression: 0.06,
+      reboundLimitContactTime: 0.004,
+      peakDamperVelocityBump: 0.8,
+    };
+    const si = eventWarnings(CORNER, EVENT, m, 'si');
+    const us = eventWarnings(CORNER, EVENT, m, 'us');
+    expect(us.map((w) => w.code)).toEqual(si.map((w) => w.code));
+    // [calc] 25 mm = 0.98 in; 600 mm = 23.62 in; 14 m/s = 31.3 mph; 4000 N = 899 lbf; 2300 N = 517 lbf;
+    // 54 mm = 2.13 in, 50 mm = 1.97 in; 40 mm = 1.57 in; 0.8 m/s = 31.50 in/s, 0.5 m/s = 19.69 in/s
+    // (1 in = 25.4 mm, 1 mi = 1609.344 m, 1 lbf = 4.4482216152605 N: exact definitions).
+    expect(us[0]?.message).toContain('over the 0.98 in bump, 23.62 in long, at 31.3 mph');
+    expect(us[0]?.message).toContain('up to 899 lbf of tyre load');
+    expect(us[1]?.message).toContain('up to 517 lbf at the damper');
+    expect(us[2]?.message).toMatch(/compresses 2\.13 in, beyond the 1\.97 in/);
+    expect(us[3]?.message).toContain('extends past 1.57 in');
+    expect(us[4]?.message).toMatch(/31\.50 in\/s in bump, past the last point of its curve \(19\.69 in\/s\)/);
+    for (const w of us) expect(w.message).not.toMatch(/\d (mm|N|m\/s|km\/h)\b/);
+    expect(si[0]?.message).toContain('over the 25.0 mm bump, 600 mm long, at 50.4 km/h');
+  });
+
   it('warns when the wheel drops past the point where the spring is unloaded, unless the damper tops out first', () => {
     // [calc] sprung weight 257·9.80665 = 2520 N, less 0.9 × 100 N of gas, over the wheel rate
     // 56 700 N/m: the spring is unloaded 42.9 mm below static.

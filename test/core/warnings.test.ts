@@ -49,6 +49,22 @@ describe('cornerWarnings', () => {
     expect(found?.field).toBe('damper.rebound.lowSpeed');
   });
 
+  it('writes the damping in the unit system asked for', () => {
+    const c = corner({ damper: linear(5000, 3000) });
+    const f = cornerRideFigures(c);
+    const message = (units: 'si' | 'us') =>
+      cornerWarnings(f, undefined, undefined, units).find((x) => x.code === 'rebound-softer-than-bump')
+        ?.message ?? '';
+    // 1 lbf·s/in = 4.4482216152605 N ÷ 0.0254 m/s = 175.1268 N·s/m (exact definitions of the lbf and the inch).
+    const perLbfSIn = 4.4482216152605 / 0.0254;
+    expect(message('si')).toContain(`(${f.wheelDamping.rebound.toFixed(0)} N·s/m at the wheel)`);
+    expect(message('us')).toContain(
+      `(${(f.wheelDamping.rebound / perLbfSIn).toFixed(2)} lbf·s/in at the wheel)`,
+    );
+    expect(message('us')).toContain(`bump (${(f.wheelDamping.bump / perLbfSIn).toFixed(2)} lbf·s/in)`);
+    expect(message('us')).not.toMatch(/N·s\/m/);
+  });
+
   it('warns of an unsprung ÷ sprung ratio outside 0.05–0.3', () => {
     expect(codes(corner({ unsprungMass: 10, tireRate: 120_000 }))).toContain('unsprung-ratio');
     expect(codes(corner({ unsprungMass: 90 }))).toContain('unsprung-ratio');

@@ -199,7 +199,7 @@ describe('the figures table', () => {
     // A warning not concerning a row is not put on it.
     expect(rows.find((row) => row.key === 'wheelRate')?.warnings.FL).toEqual([]);
     // Every warning of the corner is still listed for it.
-    expect(r.corners.FL.warnings.map((w) => w.code)).toContain('damping-low-bump');
+    expect(r.corners.FL.warnings.si.map((w) => w.code)).toContain('damping-low-bump');
   });
 
   it('marks tyre lift-off on the time off the road when the bump lifts the wheel', () => {
@@ -212,6 +212,17 @@ describe('the figures table', () => {
       .find((r) => r.key === 'bumpAirborne');
     expect(big.corners.FL.bump.airborneTime).toBeGreaterThan(0);
     expect(airborne?.warnings.FL.map((w) => w.code)).toContain('tire-lift-off');
+    // The same warning in US units, on the same row, without running anything again.
+    const us = analysisFigureGroups(big, 'us')
+      .flatMap((g) => g.rows)
+      .find((r) => r.key === 'bumpAirborne');
+    const liftOff = us?.warnings.FL.find((w) => w.code === 'tire-lift-off');
+    expect(liftOff?.message).toMatch(
+      /over the 1\.97 in bump, 11\.81 in long, at 55\.9 mph.* lbf of tyre load/,
+    );
+    expect(big.corners.FL.warnings.us.map((w) => w.code)).toEqual(
+      big.corners.FL.warnings.si.map((w) => w.code),
+    );
   });
 });
 

@@ -1,6 +1,7 @@
 import type { CornerFigures } from '../../../core/corner';
 import { cornerAnalyze, type CornerAnalysis } from '../../../core/corner-analysis';
 import { cornerFileParse } from '../../../core/corner-file';
+import type { UnitSystem } from '../../../core/units';
 import type { HandlerInput, HandlerOutput } from '../contract';
 import type { AnalyzeReport } from '../schemas';
 
@@ -64,7 +65,7 @@ export function analyzeReportOf(a: CornerAnalysis): AnalyzeReport {
 /** Reads a corner file's content and analyses it; the full analysis and its report. */
 export function analyzeCornerFile(
   raw: unknown,
-  options: { frequencies?: readonly number[] } = {},
+  options: { frequencies?: readonly number[]; units?: UnitSystem } = {},
 ): { analysis: CornerAnalysis; report: AnalyzeReport } {
   const analysis = cornerAnalyze(cornerFileParse(raw), options);
   return { analysis, report: analyzeReportOf(analysis) };

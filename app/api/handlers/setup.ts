@@ -1,3 +1,4 @@
+import type { UnitSystem } from '../../../core/units';
 import { headlineFiguresOf } from './analyze';
 import { CAUTION_TEXT } from '../../../core/caution';
 import { cornerQuarterCar, cornerRideFigures } from '../../../core/corner';
@@ -19,10 +20,10 @@ import { revisionListViewOf, revisionViewOf } from '../record-views';
 type CornerWarning = HandlerOutput<'setupShow'>['warnings'][number];
 
 /** The model's warnings for each corner of a sheet, tagged with the corner. */
-function sheetWarnings(sheet: SetupSheet): CornerWarning[] {
+function sheetWarnings(sheet: SetupSheet, units: UnitSystem): CornerWarning[] {
   return CORNER_POSITIONS.flatMap((p) => {
     const c = sheet.corners[p].analysis;
-    return cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c))).map((w) => ({
+    return cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c)), undefined, units).map((w) => ({
       position: p,
       ...w,
     }));
@@ -90,7 +91,7 @@ export function setupShowHandler(
     revision: revisionViewOf(r, parentNumberOf(store.db, r)),
     file: setupFileWrite({ vehicle: v.name, basedOnRevision: r.number, sheet }, input.units),
     figures,
-    warnings: sheetWarnings(sheet),
+    warnings: sheetWarnings(sheet, input.units),
     caution: CAUTION_TEXT,
   };
 }
@@ -127,7 +128,7 @@ export function setupDiffHandler(
     b: { vehicle: b.v.name, revision: b.r.number, name: b.r.name },
     fields: diff.fields,
     figures: diff.figures.map((f) => ({ ...f, ...SETUP_FIGURE_LABELS[f.figure] })),
-    warnings: sheetWarnings(sb),
+    warnings: sheetWarnings(sb, input.units),
     caution: CAUTION_TEXT,
   };
 }

@@ -185,6 +185,7 @@ export async function valvingChooseHandler(
     const ranking = valvingRank(job, g.curves, figures, settings.targets, {
       best: input.best ?? 3,
       current: g.positions.map((p) => sheet.corners[p].clicks),
+      units: input.units,
     });
     ranking.corners.forEach((c, k) => {
       corners.push({ ...c, position: g.positions[k] as CornerPosition, damper: g.label });
@@ -226,7 +227,7 @@ export function setupCompareHandler(
   const settings = valvingSettingsOf(input.preset, input);
   const a = revisionOf(store.db, input.a, 'a');
   const b = revisionOf(store.db, input.b, 'b');
-  const compared = valvingCompare(a.sheet, b.sheet, settings.scenario, settings.targets);
+  const compared = valvingCompare(a.sheet, b.sheet, settings.scenario, settings.targets, input.units);
   return {
     a: { vehicle: a.v.name, revision: a.r.number, name: a.r.name },
     b: { vehicle: b.v.name, revision: b.r.number, name: b.r.name },

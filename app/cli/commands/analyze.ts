@@ -193,7 +193,8 @@ export async function analyzeCommand(args: string[], io: CliIo): Promise<number>
   const options =
     values.frequencies === undefined ? {} : { frequencies: frequencyListParse(values.frequencies) };
   const raw = await readJsonFile(positionals[0] as string);
-  const { analysis, report } = analyzeCornerFile(raw, options);
+  // JSON is SI throughout (DESIGN.md), its warnings' words included; the table speaks the chosen system.
+  const { analysis, report } = analyzeCornerFile(raw, values.json ? options : { ...options, units: system });
   io.stdout(values.json ? `${JSON.stringify(report, null, 2)}\n` : analyzeHumanReport(analysis, system));
   return EXIT_OK;
 }

@@ -223,6 +223,8 @@ export async function chooseCommand(args: string[], io: CliIo): Promise<number> 
   };
   const input: Record<string, unknown> = { ...ref, corners, preset, ...edits };
   if (values.damper !== undefined) input.damper = values.damper;
+  // JSON is SI throughout, its words included; the readable report speaks the chosen system.
+  if (!values.json) input.units = units;
   if (values.interpolate) input.interpolate = true;
   const best = count(values.best, '--best');
   if (best !== undefined) input.best = best;

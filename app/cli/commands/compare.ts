@@ -107,7 +107,8 @@ export async function compareCommand(args: string[], io: CliIo): Promise<number>
   const preset = values.preset ?? edits.preset ?? 'track-day';
   const out = await withStore(values.db, io, 'read', async (ctx) => {
     const pair = await revisionPairOf(positionals, values.vehicle, ctx);
-    return apiCall('setupCompare', { ...pair, preset, ...edits }, ctx);
+    // JSON is SI throughout, its words included; the readable sheet speaks the chosen system.
+    return apiCall('setupCompare', { ...pair, preset, ...edits, units: values.json ? 'si' : units }, ctx);
   });
   io.stdout(values.json ? jsonText(out) : compareHuman(out, units));
   return EXIT_OK;

@@ -276,7 +276,8 @@ export async function simulateCommand(args: string[], io: CliIo): Promise<number
   const event = await eventFromOptions(kind as EventKind, values, file);
   const csv = values.csv;
   const result = eventSimulate(file.corner, event, { historyPoints: csv === undefined ? 0 : points });
-  const warnings = eventWarnings(file.corner, event, result.metrics);
+  // JSON is SI throughout, its words included; the readable report speaks the chosen system.
+  const warnings = eventWarnings(file.corner, event, result.metrics, values.json ? 'si' : system);
 
   if (csv !== undefined && result.history) {
     const text = historyCsv(result.history);

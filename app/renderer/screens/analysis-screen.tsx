@@ -303,7 +303,7 @@ export function AnalysisScreen() {
           <h3>Model warnings</h3>
           <div className="corner-warnings">
             {CORNER_POSITIONS.map((p) => {
-              const w = result.result.corners[p].warnings;
+              const w = result.result.corners[p].warnings[units];
               return (
                 <div key={p} className="corner-warning-box" data-corner={p}>
                   <h4>{p}</h4>

@@ -87,7 +87,9 @@ export function CompareScreen() {
       );
       const [first, ...rest] = picks;
       const pairs = first
-        ? await Promise.all(rest.map((b) => apiCall('setupCompare', { a: first, b, preset })))
+        ? await Promise.all(
+            rest.map((b) => apiCall('setupCompare', { a: first, b, preset, units: app.units })),
+          )
         : [];
       if (!gone) {
         setLoaded(sheets);
@@ -97,7 +99,8 @@ export function CompareScreen() {
     return () => {
       gone = true;
     };
-  }, [picks, preset, app.dataVersion]);
+    // The units switch asks again for the warnings' words; what is shown stays until the answer.
+  }, [picks, preset, app.units, app.dataVersion]);
 
   const scenario = presets?.presets.find((p) => p.name === preset)?.scenario;
   const targets = (compared[0]?.targets ??

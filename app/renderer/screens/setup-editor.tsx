@@ -42,12 +42,13 @@ const draftKey = (vehicle: string) => `draft:${vehicle}`;
 
 type Live = { figures: CornerFigures; modes: Modes; warnings: ModelWarning[] } | { error: string };
 
+/** A corner's live figures and warnings, the warnings written in the form's unit system. */
 function liveFigures(form: SetupForm, p: CornerPosition): Live {
   const r = setupFormCorner(form, p);
   if ('error' in r) return { error: r.error.message.replace(`corners.${p}.corner.`, '') };
   const figures = cornerRideFigures(r.corner);
   const modes = modesOf(cornerQuarterCar(r.corner));
-  return { figures, modes, warnings: cornerWarnings(figures, modes) };
+  return { figures, modes, warnings: cornerWarnings(figures, modes, undefined, form.system) };
 }
 
 function Field(props: {

@@ -136,8 +136,23 @@ function HeatMap(props: {
   );
 }
 
-function PickDetail(props: { pick: Pick; units: UnitSystem; title: string }) {
+type TargetKinds = ReadonlyMap<ValvingTargetKey, QuantityKind | null>;
+
+/** A check's value in the unit system, with its unit where it has one. */
+function checkNumber(
+  v: number,
+  kind: QuantityKind | null | undefined,
+  units: UnitSystem,
+  unit = true,
+): string {
+  if (!kind) return numberFormat(v, 3);
+  const text = numberFormat(quantityToDisplay(v, kind, units), 3);
+  return unit ? `${text} ${quantityUnitLabel(kind, units)}` : text;
+}
+
+function PickDetail(props: { pick: Pick; units: UnitSystem; title: string; kinds: TargetKinds }) {
   const p = props.pick;
+  const { units, kinds } = props;
   return (
     <details open={p.rank === 1}>
       <summary>
@@ -155,19 +170,22 @@ function PickDetail(props: { pick: Pick; units: UnitSystem; title: string }) {
           </tr>
         </thead>
         <tbody>
-          {p.checks.map((c, i) => (
-            <tr key={i}>
-              <td>{c.figure}</td>
-              <td>{numberFormat(c.value, 3)}</td>
-              <td>
-                {c.low === null ? '…' : numberFormat(c.low, 3)} to{' '}
-                {c.high === null ? '…' : numberFormat(c.high, 3)}
-              </td>
-              <td className={c.met ? 'better' : 'worse'}>
-                {c.met ? '✓ yes' : `✗ misses by ${numberFormat(Math.abs(c.miss), 3)}`}
-              </td>
-            </tr>
-          ))}
+          {p.checks.map((c, i) => {
+            const kind = kinds.get(c.target);
+            return (
+              <tr key={i}>
+                <td>{c.figure}</td>
+                <td>{checkNumber(c.value, kind, units)}</td>
+                <td>
+                  {c.low === null ? '…' : checkNumber(c.low, kind, units, false)} to{' '}
+                  {c.high === null ? '…' : checkNumber(c.high, kind, units)}
+                </td>
+                <td className={c.met ? 'better' : 'worse'}>
+                  {c.met ? '✓ yes' : `✗ misses by ${checkNumber(Math.abs(c.miss), kind, units)}`}
+                </td>
+              </tr>
+            );
+          })}
         </tbody>
       </table>
       {p.sensitivity.length > 0 ? (
@@ -229,7 +247,8 @@ export function ValvingScreen() {
   const [mapCorner, setMapCorner] = useState<CornerPosition>('FL');
   const [mapFigure, setMapFigure] = useState<(typeof MAP_FIGURES)[number]['key']>('lowSpeedMean');
   const [map, setMap] = useState<ValvingMap | null>(null);
-  const [choice, setChoice] = useState<Choice | null>(null);
+  // The ranking with the unit system its warnings were written in.
+  const [choice, setChoice] = useState<(Choice & { units: UnitSystem }) | null>(null);
   const [progress, setProgress] = useState<JobProgress | null>(null);
   const [error, setError] = useState<unknown>(null);
   const stop = useRef<AbortController | null>(null);
@@ -245,6 +264,10 @@ export function ValvingScreen() {
   }, [app.dataVersion]);
 
   const presetData = presets?.presets.find((p) => p.name === preset);
+  const kinds: TargetKinds = useMemo(
+    () => new Map((presets?.targets ?? []).map((t) => [t.key, t.kind as QuantityKind | null])),
+    [presets],
+  );
   // The preset's targets, shown in the unit system; edits start from them.
   useEffect(() => {
     if (!presetData || !presets) return;
@@ -334,10 +357,11 @@ export function ValvingScreen() {
           targets: targetsEdit,
           best: 3,
           ...(damper ? { damper } : {}),
+          units: app.units,
         },
         { onProgress: setProgress, signal: controller.signal },
       );
-      setChoice(r);
+      setChoice({ ...r, units: app.units });
     } catch (e) {
       setError(e);
     } finally {
@@ -538,6 +562,9 @@ export function ValvingScreen() {
           </div>
           <p className="muted">
             {choice.combinations} combinations evaluated. {choice.objective}
+            {choice.units !== app.units
+              ? ` The model warnings below are written in ${choice.units === 'si' ? 'SI' : 'US'} units, as when the clicks were ranked: rank again to rewrite them.`
+              : ''}
           </p>
           {choice.corners.map((c) => (
             <div key={c.position} className="corner-result">
@@ -546,12 +573,13 @@ export function ValvingScreen() {
                 every target
               </h3>
               {c.best.map((b) => (
-                <PickDetail key={b.cell} pick={b} units={app.units} title={`#${b.rank}`} />
+                <PickDetail key={b.cell} pick={b} units={app.units} kinds={kinds} title={`#${b.rank}`} />
               ))}
               {c.current ? (
                 <PickDetail
                   pick={c.current}
                   units={app.units}
+                  kinds={kinds}
                   title={`As set now (rank ${c.current.rank} of ${c.evaluated})`}
                 />
               ) : null}
