@@ -223,6 +223,27 @@ function shortText(text: string | null, max = 24): string {
 }
 
 /**
+ * The two numbers of a change as short as they can be and still differ: 3 significant figures,
+ * more only where 3 would show them equal (400 → 500 lbf/in stored as 70.0507 → 87.5634 N/mm
+ * reads "70.1→87.6"). Texts that are not numbers are left as they are.
+ */
+function changeNumbersText(before: string | null, after: string | null): [string | null, string | null] {
+  const number = (t: string | null) => (t === null || t.trim() === '' ? null : Number(t));
+  const a = number(before);
+  const b = number(after);
+  const ok = (v: number | null) => v === null || Number.isFinite(v);
+  if (!ok(a) || !ok(b) || (a === null && b === null)) return [before, after];
+  const short = (v: number | null, digits: number, text: string | null) =>
+    v === null ? text : String(Number(v.toPrecision(digits)));
+  for (let digits = 3; digits < 12; digits++) {
+    const sa = short(a, digits, before);
+    const sb = short(b, digits, after);
+    if (sa !== sb || a === b) return [sa, sb];
+  }
+  return [before, after];
+}
+
+/**
  * A one-line account of a diff for the revision history: like changes grouped across
  * corners ("spring rate rear 70→80 N/mm; rebound clicks FL 6→8"), cut at `maxLength`.
  */
@@ -238,7 +259,9 @@ export function setupDiffSummary(diff: SetupDiff, maxLength = 160): string {
       ? ''
       : TEXT_PATHS.has(relative)
         ? ` "${shortText(c.after)}"`
-        : ` ${shortText(c.before)}→${shortText(c.after)}${c.unit && c.unit !== 'clicks' ? ` ${c.unit}` : ''}`;
+        : ` ${changeNumbersText(c.before, c.after)
+            .map((t) => shortText(t))
+            .join('→')}${c.unit && c.unit !== 'clicks' ? ` ${c.unit}` : ''}`;
     const g = groups.get(key) ?? { text: (where: string) => `${c.label}${where}${values}`, positions: [] };
     if (c.position) g.positions.push(c.position);
     groups.set(key, g);

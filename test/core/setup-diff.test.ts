@@ -162,6 +162,18 @@ describe('setupDiffSummary', () => {
     expect(line).toMatch(/… \d+ more$/);
   });
 
+  it('writes stored numbers short, with as many figures as it takes to tell them apart', () => {
+    const a = setupFileFixture();
+    const b = setupFileFixture();
+    // [calc] 1 lbf/in = 4.4482216152605 N ÷ 25.4 mm = 0.175127 N/mm: 400 lbf/in = 70.0507 N/mm, 500 lbf/in = 87.5634 N/mm.
+    cornerOf(a, 'FL').springRate = '400 lbf/in';
+    cornerOf(b, 'FL').springRate = '500 lbf/in';
+    expect(setupDiffSummary(setupDiff(sheetOf(a), sheetOf(b)))).toBe('spring rate FL 70.1→87.6 N/mm');
+    // 400 → 400.1 lbf/in: 70.0507 → 70.0682 N/mm, equal at 3 figures (70.1), apart at 4.
+    cornerOf(b, 'FL').springRate = '400.1 lbf/in';
+    expect(setupDiffSummary(setupDiff(sheetOf(a), sheetOf(b)))).toBe('spring rate FL 70.05→70.07 N/mm');
+  });
+
   it('says "no setup changes" when only the name, event or date changed', () => {
     const b = setupFileFixture();
     b.name = 'Same car, new day';
