@@ -116,6 +116,9 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     await fr.getByLabel('Spring rate *').fill('500');
     await page.getByRole('button', { name: 'Save as new revision' }).click();
     await page.getByText(/Saved as revision #2/).waitFor();
+    // Saving again untouched adds nothing.
+    await page.getByRole('button', { name: 'Save as new revision' }).click();
+    await page.getByText('Nothing to save: the sheet is as revision #2 has it.').waitFor();
     await page.getByRole('navigation', { name: 'Screens' }).getByRole('button', { name: 'Vehicles' }).click();
     await page.getByRole('button', { name: /Test hatch #5/ }).click();
     await page.getByLabel('pick #1').check();

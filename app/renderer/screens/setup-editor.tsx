@@ -356,6 +356,11 @@ export function SetupEditor() {
 
   const save = useCallback(async () => {
     if (!form || !open) return;
+    // An untouched sheet would only add a revision that says "no changes".
+    if (!dirty && basedOn !== undefined) {
+      setMessage(`Nothing to save: the sheet is as revision #${basedOn} has it.`);
+      return;
+    }
     if (problems.size > 0) {
       setMessage(
         `Not saved: ${problems.size} field${problems.size === 1 ? ' needs' : 's need'} attention (marked).`,
@@ -380,7 +385,7 @@ export function SetupEditor() {
     } catch (e) {
       setError(e);
     }
-  }, [form, open, basedOn, problems, app]);
+  }, [form, open, basedOn, dirty, problems, app]);
 
   useEffect(
     () =>
