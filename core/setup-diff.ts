@@ -227,7 +227,10 @@ function shortText(text: string | null, max = 24): string {
  * more only where 3 would show them equal (400 → 500 lbf/in stored as 70.0507 → 87.5634 N/mm
  * reads "70.1→87.6"). Texts that are not numbers are left as they are.
  */
-function changeNumbersText(before: string | null, after: string | null): [string | null, string | null] {
+export function setupChangeNumbersText(
+  before: string | null,
+  after: string | null,
+): [string | null, string | null] {
   const number = (t: string | null) => (t === null || t.trim() === '' ? null : Number(t));
   const a = number(before);
   const b = number(after);
@@ -259,7 +262,7 @@ export function setupDiffSummary(diff: SetupDiff, maxLength = 160): string {
       ? ''
       : TEXT_PATHS.has(relative)
         ? ` "${shortText(c.after)}"`
-        : ` ${changeNumbersText(c.before, c.after)
+        : ` ${setupChangeNumbersText(c.before, c.after)
             .map((t) => shortText(t))
             .join('→')}${c.unit && c.unit !== 'clicks' ? ` ${c.unit}` : ''}`;
     const g = groups.get(key) ?? { text: (where: string) => `${c.label}${where}${values}`, positions: [] };

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { setupDiff, setupDiffSummary } from '../../core/setup-diff';
+import { setupChangeNumbersText, setupDiff, setupDiffSummary } from '../../core/setup-diff';
 import { setupFileParse, setupFileWrite } from '../../core/setup-file';
 import type { SetupSheet } from '../../core/setup-sheet';
 import { setupFileFixture } from './setup-fixture';
@@ -172,6 +172,14 @@ describe('setupDiffSummary', () => {
     // 400 → 400.1 lbf/in: 70.0507 → 70.0682 N/mm, equal at 3 figures (70.1), apart at 4.
     cornerOf(b, 'FL').springRate = '400.1 lbf/in';
     expect(setupDiffSummary(setupDiff(sheetOf(a), sheetOf(b)))).toBe('spring rate FL 70.05→70.07 N/mm');
+  });
+
+  it('leaves dates, texts and an absent side alone when shortening', () => {
+    expect(setupChangeNumbersText('399.71', '456.812')).toEqual(['400', '457']);
+    expect(setupChangeNumbersText('2025-03-22', '2025-04-12')).toEqual(['2025-03-22', '2025-04-12']);
+    expect(setupChangeNumbersText('hole 1 of 5', 'disconnected')).toEqual(['hole 1 of 5', 'disconnected']);
+    expect(setupChangeNumbersText(null, '12.3456')).toEqual([null, '12.3']);
+    expect(setupChangeNumbersText('-2.8', '-3.2')).toEqual(['-2.8', '-3.2']);
   });
 
   it('says "no setup changes" when only the name, event or date changed', () => {

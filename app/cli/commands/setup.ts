@@ -1,3 +1,4 @@
+import { setupChangeNumbersText } from '../../../core/setup-diff';
 import { CAUTION_TEXT } from '../../../core/caution';
 import { clickSettingsText } from '../../../core/click-settings';
 import { damperDirectionSlopes } from '../../../core/damper-curve';
@@ -138,7 +139,10 @@ function diffHuman(out: HandlerOutput<'setupDiff'>): string {
       'Changed values',
       tableFormat([
         ['field', 'before', 'after', 'unit'],
-        ...quantities.map((f) => [label(f), f.before ?? '—', f.after ?? '—', f.unit]),
+        ...quantities.map((f) => {
+          const [before, after] = setupChangeNumbersText(f.before, f.after);
+          return [label(f), before ?? '—', after ?? '—', f.unit];
+        }),
       ]),
     );
   if (texts.length > 0) {

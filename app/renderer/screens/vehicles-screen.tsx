@@ -1,3 +1,4 @@
+import { setupChangeNumbersText } from '../../../core/setup-diff';
 import { useEffect, useState, type FormEvent } from 'react';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
@@ -96,8 +97,9 @@ export function DiffView(props: { a: RevisionPick; b: RevisionPick }) {
               <tr key={`${f.position ?? ''}-${f.field}`}>
                 <td>{f.label}</td>
                 <td>{f.position ?? '—'}</td>
-                <td>{f.before ?? '—'}</td>
-                <td>{f.after ?? '—'}</td>
+                {setupChangeNumbersText(f.before, f.after).map((t, i) => (
+                  <td key={i}>{t ?? '—'}</td>
+                ))}
                 <td>{f.unit}</td>
               </tr>
             ))}
