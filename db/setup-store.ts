@@ -59,7 +59,7 @@ export function setupRevisionResolve(
  * to its parent (the newest revision unless another is named), with a one-line summary of
  * what changed from the parent. Damper labels new to the library are added to it. One
  * transaction: on any error nothing is stored.
- * @throws InputError when the parent revision does not exist.
+ * @throws InputError when the parent revision does not exist, or when the sheet is its parent's exactly.
  */
 export function setupSave(
   store: Store,
@@ -75,7 +75,14 @@ export function setupSave(
       options.parentNumber === undefined
         ? latest
         : setupRevisionResolve(db, vehicle, options.parentNumber, 'basedOnRevision');
-    const summary = parent ? setupDiffSummary(setupDiff(setupSheetRead(db, parent), sheet)) : 'first setup';
+    const diff = parent ? setupDiff(setupSheetRead(db, parent), sheet) : null;
+    // A copy of its parent would only be a revision that says "no changes".
+    if (parent && diff && diff.fields.length === 0)
+      throw new InputError(
+        'file',
+        `nothing differs from revision ${parent.number}, so nothing was saved: change a field (or the event or date) first`,
+      );
+    const summary = diff ? setupDiffSummary(diff) : 'first setup';
     const dampersCreated: string[] = [];
     const damperIds = new Map<string, number>();
     for (const p of CORNER_POSITIONS) {

@@ -97,7 +97,7 @@ describe('setups through the API', () => {
     expect(d.caution).toBe(CAUTION_TEXT);
   });
 
-  it('shows a revision as a setup file that saves again as its child, with no changes', async () => {
+  it('shows a revision as a setup file whose unchanged save is refused: the round trip is exact', async () => {
     const ctx = await withCoupe();
     await apiCall('setupSave', { file: setupFileFixture() }, ctx);
     await apiCall('setupSave', { file: { ...setupFileFixture(), name: 'Later' } }, ctx);
@@ -105,15 +105,21 @@ describe('setups through the API', () => {
     expect(shown.file.basedOnRevision).toBe(1);
     expect(shown.caution).toBe(CAUTION_TEXT);
     expect(shown.figures.FL.rideFrequencyHz).toBeGreaterThan(1.5);
-    const again = await apiCall('setupSave', { file: shown.file }, ctx);
-    expect(again.revision).toMatchObject({ number: 3, parent: 1, summary: 'no changes' });
+    // Written in US units and read back, nothing differs from revision 1, so the save is refused.
+    const before = storeDigest(ctx.store);
+    await expect(apiCall('setupSave', { file: shown.file }, ctx)).rejects.toThrow(
+      /^file: nothing differs from revision 1, so nothing was saved/,
+    );
+    expect(storeDigest(ctx.store)).toBe(before);
+    const again = await apiCall('setupSave', { file: { ...shown.file, name: 'Again' } }, ctx);
+    expect(again.revision).toMatchObject({ number: 3, parent: 1, summary: 'no setup changes' });
     expect(again.branched).toBe(true);
     const d = await apiCall(
       'setupDiff',
       { a: { vehicle: 'Test coupe', revision: 1 }, b: { vehicle: 'Test coupe' } },
       ctx,
     );
-    expect(d.fields).toEqual([]);
+    expect(d.fields.map((f) => f.field)).toEqual(['name']);
     expect(d.figures).toEqual([]);
   });
 

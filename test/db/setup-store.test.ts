@@ -36,11 +36,32 @@ describe('setupSave', () => {
     const v = vehicleAdded(store);
     setupSaved(store, v);
     setupSaved(store, v, (r) => (r.fuelLoad = '10 kg'));
-    const branch = setupSave(store, v, setupFileParse(setupFileFixture()).sheet, { parentNumber: 1 });
+    const raw = setupFileFixture();
+    raw.fuelLoad = '40 kg';
+    const branch = setupSave(store, v, setupFileParse(raw).sheet, { parentNumber: 1 });
     expect(branch.revision.number).toBe(3);
     expect(branch.parentNumber).toBe(1);
     expect(branch.branched).toBe(true);
-    expect(branch.revision.summary).toBe('no changes');
+    expect(branch.revision.summary).toBe('fuel load 25→40 kg');
+  });
+
+  it('refuses a sheet that is its parent’s exactly, and stores nothing', () => {
+    const store = freshStore();
+    const v = vehicleAdded(store);
+    setupSaved(store, v);
+    setupSaved(store, v, (r) => (r.fuelLoad = '10 kg'));
+    const before = storeDigest(store);
+    const same = setupFileParse(setupFileFixture()).sheet;
+    expect(() => setupSave(store, v, same, { parentNumber: 1 })).toThrow(
+      /^file: nothing differs from revision 1, so nothing was saved/,
+    );
+    expect(storeDigest(store)).toBe(before);
+    // The same sheet for another event is a record of its own.
+    const raw = setupFileFixture();
+    raw.event = 'Round 2';
+    expect(setupSave(store, v, setupFileParse(raw).sheet, { parentNumber: 1 }).revision.summary).toBe(
+      'no setup changes',
+    );
   });
 
   it('refuses a parent that does not exist and stores nothing', () => {
