@@ -79,7 +79,7 @@ describe.skipIf(!chromium)('accessibility basics in a real Chromium', () => {
     app = await appServe();
     browser = await browserOpen(chromium as string);
     page = browser.page;
-    page.setDefaultTimeout(8000);
+    page.setDefaultTimeout(20_000); // generous: the suite shares two cores with the unit tests
     await page.goto(app.url);
   });
   afterAll(async () => {

@@ -23,7 +23,7 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     app = await appServe();
     browser = await browserOpen(chromium as string);
     page = browser.page;
-    page.setDefaultTimeout(8000);
+    page.setDefaultTimeout(20_000); // generous: the suite shares two cores with the unit tests
     page.on('pageerror', (e) => pageErrors.push(e.message));
   });
   afterAll(async () => {
