@@ -244,6 +244,10 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
       /^#1: bump \d+, rebound \d+ — meets \d+ of \d+ checks/,
     );
     await shot('06-valving');
+    // Another car starts on the damper unit its own corners record.
+    await page.getByLabel('Vehicle').selectOption('Millbrook single-seater #9');
+    await page.locator('[data-testid="heat-map"][data-vehicle="Millbrook single-seater #9"]').waitFor();
+    await expect(page.getByLabel('Damper').inputValue()).resolves.toBe('MB-SA-1');
   });
 
   it('raised no error in the page', () => {

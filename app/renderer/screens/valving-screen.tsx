@@ -1,6 +1,7 @@
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import { CAUTION_TEXT } from '../../../core/caution';
 import type { ClickSettings } from '../../../core/click-settings';
+import { setupFileParse } from '../../../core/setup-file';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
 import {
   numberFormat,
@@ -243,6 +244,8 @@ export function ValvingScreen() {
   // null until the bench library has answered: the map waits for it, so it is asked for once.
   const [dampers, setDampers] = useState<string[] | null>(null);
   const [damper, setDamper] = useState('');
+  // The revision (vehicle#number) the damper was chosen for: a new revision picks its own unit.
+  const [damperFor, setDamperFor] = useState<string | null>(null);
   const [interpolate, setInterpolate] = useState(false);
   const [mapCorner, setMapCorner] = useState<CornerPosition>('FL');
   const [mapFigure, setMapFigure] = useState<(typeof MAP_FIGURES)[number]['key']>('lowSpeedMean');
@@ -258,8 +261,6 @@ export function ValvingScreen() {
     apiCall('benchList', {}).then((r) => {
       const measured = r.dampers.filter((d) => d.runCount > 0).map((d) => d.label);
       setDampers(measured);
-      // Start from a unit that has bench data; a corner's recorded unit may have none yet.
-      setDamper((d) => d || measured[0] || '');
     }, setError);
   }, [app.dataVersion]);
 
@@ -290,9 +291,30 @@ export function ValvingScreen() {
 
   const mapVehicle = pick?.vehicle;
   const mapRevision = pick?.revision;
-  const dampersKnown = dampers !== null;
+  const pickKey = pick ? `${pick.vehicle}#${pick.revision}` : null;
+  // Start each revision on the unit its corners record, the map's corner first, among the units
+  // with bench data; a corner's recorded unit may have none yet, and then the first that has.
   useEffect(() => {
-    if (mapVehicle === undefined || mapRevision === undefined || !dampersKnown) return;
+    if (mapVehicle === undefined || mapRevision === undefined || dampers === null || pickKey === null) return;
+    if (damperFor === pickKey) return;
+    let gone = false;
+    apiCall('setupShow', { vehicle: mapVehicle, revision: mapRevision, units: 'si' }).then((r) => {
+      if (gone) return;
+      const corners = setupFileParse(r.file).sheet.corners;
+      const recorded = [mapCorner, ...CORNER_POSITIONS].map((p) => corners[p].damperUnit);
+      const measured = new Map(dampers.map((d) => [d.toLowerCase(), d]));
+      const found = recorded.map((u) => measured.get(u.toLowerCase())).find((u) => u !== undefined);
+      setDamper(found ?? dampers[0] ?? '');
+      setDamperFor(pickKey);
+    }, setError);
+    return () => {
+      gone = true;
+    };
+  }, [mapVehicle, mapRevision, pickKey, dampers, damperFor, mapCorner]);
+
+  const damperReady = damperFor !== null && damperFor === pickKey;
+  useEffect(() => {
+    if (mapVehicle === undefined || mapRevision === undefined || !damperReady) return;
     // A newer choice replaces the map asked for before it, whichever answer comes back last.
     let gone = false;
     setMap(null);
@@ -309,7 +331,7 @@ export function ValvingScreen() {
     return () => {
       gone = true;
     };
-  }, [mapVehicle, mapRevision, dampersKnown, mapCorner, damper, interpolate, app.dataVersion]);
+  }, [mapVehicle, mapRevision, damperReady, mapCorner, damper, interpolate, app.dataVersion]);
 
   const targetsEdit = useMemo(() => {
     const targets: Record<string, unknown> = {};
