@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { build } from 'esbuild';
+import { build, stop } from 'esbuild';
 import {
   valvingEvaluatorOf,
   valvingJobSize,
@@ -56,7 +56,12 @@ export function valvingWorkerCode(): Promise<string> {
     target: 'node20',
     write: false,
     logLevel: 'silent',
-  }).then((r) => (r.outputFiles[0] as { text: string }).text);
+  }).then(async (r) => {
+    const text = (r.outputFiles[0] as { text: string }).text;
+    // esbuild's own process (some 90 MB) would idle beside a kept pool: the bundle is all it is needed for.
+    await stop();
+    return text;
+  });
   // A failed build is not kept: the next pool tries again.
   workerCode.catch(() => (workerCode = null));
   return workerCode;
