@@ -152,6 +152,14 @@ export class ValvingPool {
       this.lanes.splice(i, 1);
       // The chunk it held is gone with it: the sweep cannot be whole.
       if (lane.busy && this.active) this.active.finish(error);
+      if (this.closed) return;
+      // A kept pool outlives its sweeps: a worker that had started is replaced (one that died
+      // starting would die again). With none left, sweeps off this thread fail instead of waiting.
+      if (lane.ready) this.laneStart(code);
+      else if (this.lanes.length === 0) {
+        this.startError = error;
+        if (this.active && !this.active.inThread) this.active.finish(error);
+      }
     };
     lane.worker.on('error', lost);
     lane.worker.on('exit', (code) => {
