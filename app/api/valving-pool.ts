@@ -1,7 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { build } from 'esbuild';
+import { build, stop } from 'esbuild';
 import {
   valvingEvaluatorOf,
   valvingJobSize,
@@ -56,7 +56,12 @@ export function valvingWorkerCode(): Promise<string> {
     target: 'node20',
     write: false,
     logLevel: 'silent',
-  }).then((r) => (r.outputFiles[0] as { text: string }).text);
+  }).then(async (r) => {
+    const text = (r.outputFiles[0] as { text: string }).text;
+    // esbuild's own process (some 90 MB) would idle beside a kept pool: the bundle is all it is needed for.
+    await stop();
+    return text;
+  });
   // A failed build is not kept: the next pool tries again.
   workerCode.catch(() => (workerCode = null));
   return workerCode;
@@ -147,6 +152,14 @@ export class ValvingPool {
       this.lanes.splice(i, 1);
       // The chunk it held is gone with it: the sweep cannot be whole.
       if (lane.busy && this.active) this.active.finish(error);
+      if (this.closed) return;
+      // A kept pool outlives its sweeps: a worker that had started is replaced (one that died
+      // starting would die again). With none left, sweeps off this thread fail instead of waiting.
+      if (lane.ready) this.laneStart(code);
+      else if (this.lanes.length === 0) {
+        this.startError = error;
+        if (this.active && !this.active.inThread) this.active.finish(error);
+      }
     };
     lane.worker.on('error', lost);
     lane.worker.on('exit', (code) => {

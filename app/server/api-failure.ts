@@ -1,5 +1,6 @@
 import { InputError } from '../../core/input-error';
 import type { ApiFailure } from './http-server';
+import type { JobError } from './jobs';
 import { PolicyRefusal } from './policy';
 
 /** What the page sees of an error: bad input names its field; a refusal says why; anything else is internal. */
@@ -7,4 +8,15 @@ export function apiFailureOf(e: unknown): ApiFailure | undefined {
   if (e instanceof InputError) return { status: 400, field: e.field, message: e.message };
   if (e instanceof PolicyRefusal) return { status: 404, message: e.message };
   return undefined;
+}
+
+/** A failed job's error as the page polls it: what a call would have answered, else an internal error. */
+export function jobErrorOf(e: unknown): JobError {
+  const failure = apiFailureOf(e);
+  if (!failure) return { status: 500, message: `internal error: ${(e as Error).message}` };
+  return {
+    status: failure.status,
+    message: failure.message,
+    ...(failure.field !== undefined ? { field: failure.field } : {}),
+  };
 }

@@ -3,7 +3,7 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { storeClose, storeOpen } from '../../db/store';
 import { apiCall } from '../api/call';
 import type { HandlerName } from '../api/contract';
-import { apiFailureOf } from './api-failure';
+import { jobErrorOf } from './api-failure';
 import type { JobMessage } from './jobs';
 
 const { storePath, name, input } = workerData as { storePath: string; name: HandlerName; input: unknown };
@@ -15,7 +15,7 @@ let lastPost = 0;
 try {
   const value = await apiCall(name, input, {
     store,
-    // Handlers that count their work (a valving sweep) report it; a few times a second is enough.
+    // Handlers that count their work report it; a few times a second is enough.
     onProgress: (done, total) => {
       const now = Date.now();
       if (now - lastPost < 100 && done < total) return;
@@ -25,17 +25,7 @@ try {
   });
   post({ kind: 'done', value });
 } catch (e) {
-  const failure = apiFailureOf(e);
-  post({
-    kind: 'failed',
-    error: failure
-      ? {
-          status: failure.status,
-          message: failure.message,
-          ...(failure.field !== undefined ? { field: failure.field } : {}),
-        }
-      : { status: 500, message: `internal error: ${(e as Error).message}` },
-  });
+  post({ kind: 'failed', error: jobErrorOf(e) });
 } finally {
   storeClose(store);
 }

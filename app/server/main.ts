@@ -54,7 +54,8 @@ async function serverMain(argv: string[]): Promise<void> {
     dispatch: (name, input) => {
       const handler = handlerNameCheck(name);
       handlerInputCheck(handler, input);
-      return apiCall(handler, input, { store });
+      // A sweep asked for outright runs on the jobs' kept pool too, off this thread.
+      return apiCall(handler, input, { store, valvingPool: jobs.valvingPool });
     },
     describeError: apiFailureOf,
     jobs: {

@@ -48,7 +48,6 @@ describe('jobs: long calls in worker threads', () => {
       preset: 'track-day',
       damper: 'MB-DA-1',
       interpolate: true,
-      threads: 1,
     });
     const s = await settle(id, (r) => {
       if (r.state === 'running' && r.done !== undefined) seen.push(r.done / (r.total as number));
