@@ -221,7 +221,7 @@ export const valvingContract = {
       ...editsInput,
       /** How many of the best combinations to show per corner. */
       best: z.number().int().min(1).max(50).optional(),
-      /** Worker threads (0: this thread only); one a core when left out. */
+      /** Worker threads (0: this thread only); one a core when left out. Ignored where a kept pool sweeps (the server). */
       threads: z.number().int().min(0).max(64).optional(),
       /** The unit system the warnings are written in (the figures stay SI). */
       units: unitSystemSchema,

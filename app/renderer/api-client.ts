@@ -95,7 +95,8 @@ async function jobRequest(path: string, method: 'GET' | 'POST', body?: unknown):
 }
 
 /**
- * Runs a handler as a job on the backend (its own thread, so a large import never stalls the
+ * Runs a handler as a job on the backend (off the server's thread — a thread of its own, or the
+ * kept sweep pool for a valving sweep — so a large import never stalls the
  * app), polling its progress; aborting the signal cancels it, and a cancelled job stores nothing.
  */
 export async function apiJob<N extends HandlerName>(
