@@ -233,6 +233,15 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     const heatMap = page.locator('[data-testid="heat-map"][data-vehicle="Millbrook coupe #27"]');
     await heatMap.waitFor();
     await expect.poll(() => heatMap.locator('tbody tr').count()).toBe(5);
+    // The knee and the modes over the same grid, and every figure of every click in one table.
+    await page.getByLabel('Figure', { exact: true }).selectOption({ label: 'knee speed, bump' });
+    await expect.poll(() => heatMap.locator('tbody td').first().textContent()).toMatch(/^\d+\.\d+ in\/s/);
+    await page.getByLabel('Figure', { exact: true }).selectOption({ label: 'body mode, frequency' });
+    await expect.poll(() => heatMap.locator('tbody td').first().textContent()).toMatch(/^\d\.\d\d Hz/);
+    await page.getByText(/^Every figure at each click \(25 rows\)/).click();
+    const everything = page.getByRole('table', { name: 'Every figure over the clicks at FL' });
+    await expect.poll(() => everything.locator('tbody tr').count()).toBe(25);
+    await page.getByLabel('Figure', { exact: true }).selectOption({ label: 'ζ low speed, mean' });
     for (const p of ['FR', 'RL', 'RR']) await page.getByRole('checkbox', { name: p, exact: true }).uncheck();
     await page.getByRole('button', { name: 'Find the best clicks' }).click();
     const rec = page.getByTestId('recommendation');

@@ -5,6 +5,7 @@ import { setupFileParse } from '../../../core/setup-file';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
 import {
   numberFormat,
+  quantityFormat,
   quantityFromDisplay,
   quantityToDisplay,
   quantityUnitLabel,
@@ -47,14 +48,61 @@ export const clicksText = (c: ClickSettings) =>
     .map(([k, v]) => `${ADJUSTER_WORDS[k] ?? k} ${v}`)
     .join(', ') || 'no clicks';
 
-/** The map's figures a heat map can show, with the target whose band marks them. */
-const MAP_FIGURES = [
-  { key: 'lowSpeedMean', label: 'ζ low speed, mean', target: 'lowSpeedMean' },
-  { key: 'bump', label: 'ζ bump, low speed', target: 'bumpLowSpeed' },
-  { key: 'rebound', label: 'ζ rebound, low speed', target: 'reboundLowSpeed' },
-  { key: 'bumpHighSpeed', label: 'ζ bump, high speed', target: 'highSpeed' },
-  { key: 'reboundHighSpeed', label: 'ζ rebound, high speed', target: 'highSpeed' },
-] as const;
+type MapCell = ValvingMap['cells'][number];
+
+/**
+ * The map's figures a heat map can show, SI: ζ (with the target whose band marks them), the
+ * damper's knee speeds and the linearised modes. null where a cell has none (a mode that does
+ * not oscillate).
+ */
+const MAP_FIGURES: readonly {
+  key: string;
+  label: string;
+  value: (c: MapCell) => number | null;
+  text: (v: number, units: UnitSystem) => string;
+  target?: ValvingTargetKey;
+}[] = [
+  ...(
+    [
+      ['lowSpeedMean', 'ζ low speed, mean', 'lowSpeedMean'],
+      ['bump', 'ζ bump, low speed', 'bumpLowSpeed'],
+      ['rebound', 'ζ rebound, low speed', 'reboundLowSpeed'],
+      ['bumpHighSpeed', 'ζ bump, high speed', 'highSpeed'],
+      ['reboundHighSpeed', 'ζ rebound, high speed', 'highSpeed'],
+    ] as const
+  ).map(([key, label, target]) => ({
+    key,
+    label,
+    target,
+    value: (c: MapCell) => c.figures.dampingRatio[key],
+    text: (v: number) => numberFormat(v, 2),
+  })),
+  ...(['bump', 'rebound'] as const).map((dir) => ({
+    key: `knee-${dir}`,
+    label: `knee speed, ${dir}`,
+    value: (c: MapCell) => c.figures.kneeSpeed[dir],
+    text: (v: number, units: UnitSystem) => quantityFormat(v, 'velocity', units),
+  })),
+  ...(
+    [
+      ['body', 'body mode'],
+      ['wheelHop', 'wheel-hop mode'],
+    ] as const
+  ).flatMap(([mode, words]) => [
+    {
+      key: `${mode}-frequency`,
+      label: `${words}, frequency`,
+      value: (c: MapCell) => c.figures.modes[mode]?.frequencyHz ?? null,
+      text: (v: number) => `${numberFormat(v, 2)} Hz`,
+    },
+    {
+      key: `${mode}-damping`,
+      label: `${words}, ζ`,
+      value: (c: MapCell) => c.figures.modes[mode]?.dampingRatio ?? null,
+      text: (v: number) => numberFormat(v, 2),
+    },
+  ]),
+];
 
 function bandOf(t: { low: number | null; high: number | null } | undefined, v: number): boolean | null {
   if (!t || (t.low === null && t.high === null)) return null;
@@ -70,11 +118,12 @@ const shown = (v: number | null, kind: string | null, units: UnitSystem) =>
 function HeatMap(props: {
   map: ValvingMap;
   figure: (typeof MAP_FIGURES)[number];
+  units: UnitSystem;
   band?: { low: number | null; high: number | null };
 }) {
-  const { map, figure } = props;
+  const { map, figure, units } = props;
   const [rows, cols] = map.axes;
-  const values = map.cells.map((c) => c.figures.dampingRatio[figure.key]);
+  const values = map.cells.map(figure.value).filter((v): v is number => v !== null);
   const lo = Math.min(...values);
   const hi = Math.max(...values);
   if (!rows) return null;
@@ -94,8 +143,8 @@ function HeatMap(props: {
     >
       <caption style={{ textAlign: 'left', fontWeight: 700 }}>
         {figure.label} at {map.position} with {map.damper}: rows {ADJUSTER_WORDS[rows.adjuster]} clicks
-        {cols ? `, columns ${ADJUSTER_WORDS[cols.adjuster]} clicks` : ''}. ✓ inside the target band; i
-        interpolated.
+        {cols ? `, columns ${ADJUSTER_WORDS[cols.adjuster]} clicks` : ''}.
+        {figure.target ? ' ✓ inside the target band;' : ''} i interpolated; — none.
       </caption>
       <thead>
         <tr>
@@ -115,8 +164,8 @@ function HeatMap(props: {
             <th scope="row">{r}</th>
             {(cols?.clicks ?? [0]).map((_, j) => {
               const cell = cellAt(i, j);
-              if (!cell) return <td key={j}>—</td>;
-              const v = cell.figures.dampingRatio[figure.key];
+              const v = cell ? figure.value(cell) : null;
+              if (!cell || v === null) return <td key={j}>—</td>;
               const inBand = bandOf(props.band, v);
               return (
                 <td
@@ -124,7 +173,7 @@ function HeatMap(props: {
                   style={{ background: shade(v), textAlign: 'center' }}
                   title={clicksText(cell.clicks)}
                 >
-                  {numberFormat(v, 2)}
+                  {figure.text(v, units)}
                   {inBand ? ' ✓' : ''}
                   {cell.source === 'interpolated' ? ' i' : ''}
                 </td>
@@ -134,6 +183,44 @@ function HeatMap(props: {
         ))}
       </tbody>
     </table>
+  );
+}
+
+/** Every figure of every click of the map, one row a click combination. */
+function MapTable(props: { map: ValvingMap; units: UnitSystem }) {
+  const { map, units } = props;
+  return (
+    <details>
+      <summary>Every figure at each click ({map.cells.length} rows)</summary>
+      <table className="figures" aria-label={`Every figure over the clicks at ${map.position}`}>
+        <thead>
+          <tr>
+            <th scope="col">Clicks</th>
+            {MAP_FIGURES.map((f) => (
+              <th scope="col" key={f.key}>
+                {f.label}
+              </th>
+            ))}
+            <th scope="col">Bench runs</th>
+          </tr>
+        </thead>
+        <tbody>
+          {map.cells.map((c) => (
+            <tr key={clicksText(c.clicks)}>
+              <th scope="row">
+                {clicksText(c.clicks)}
+                {c.source === 'interpolated' ? ' (interpolated)' : ''}
+              </th>
+              {MAP_FIGURES.map((f) => {
+                const v = f.value(c);
+                return <td key={f.key}>{v === null ? '—' : f.text(v, units)}</td>;
+              })}
+              <td>{c.runIds.length ? c.runIds.map((id) => `#${id}`).join(' ') : '—'}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </details>
   );
 }
 
@@ -248,7 +335,7 @@ export function ValvingScreen() {
   const [damperFor, setDamperFor] = useState<string | null>(null);
   const [interpolate, setInterpolate] = useState(false);
   const [mapCorner, setMapCorner] = useState<CornerPosition>('FL');
-  const [mapFigure, setMapFigure] = useState<(typeof MAP_FIGURES)[number]['key']>('lowSpeedMean');
+  const [mapFigure, setMapFigure] = useState('lowSpeedMean');
   const [map, setMap] = useState<ValvingMap | null>(null);
   // The ranking with the unit system its warnings were written in.
   const [choice, setChoice] = useState<(Choice & { units: UnitSystem }) | null>(null);
@@ -392,11 +479,10 @@ export function ValvingScreen() {
     }
   };
 
-  const figure = MAP_FIGURES.find((f) => f.key === mapFigure) ?? MAP_FIGURES[0];
+  const figure =
+    MAP_FIGURES.find((f) => f.key === mapFigure) ?? (MAP_FIGURES[0] as (typeof MAP_FIGURES)[number]);
   const band =
-    presetData && !edits[figure.target]?.off
-      ? presetData.targets[figure.target as ValvingTargetKey]
-      : undefined;
+    presetData && figure.target && !edits[figure.target]?.off ? presetData.targets[figure.target] : undefined;
 
   return (
     <section aria-label="Choose valving">
@@ -436,11 +522,7 @@ export function ValvingScreen() {
       <div className="toolbar">
         <CornerChoice value={mapCorner} onChange={setMapCorner} />
         <label htmlFor={`${id}-figure`}>Figure</label>
-        <select
-          id={`${id}-figure`}
-          value={mapFigure}
-          onChange={(e) => setMapFigure(e.target.value as typeof mapFigure)}
-        >
+        <select id={`${id}-figure`} value={mapFigure} onChange={(e) => setMapFigure(e.target.value)}>
           {MAP_FIGURES.map((f) => (
             <option key={f.key} value={f.key}>
               {f.label}
@@ -450,7 +532,8 @@ export function ValvingScreen() {
       </div>
       {map ? (
         <>
-          <HeatMap map={map} figure={figure} {...(band ? { band } : {})} />
+          <HeatMap map={map} figure={figure} units={app.units} {...(band ? { band } : {})} />
+          <MapTable map={map} units={app.units} />
           {map.notes.length > 0 ? <p className="muted">{map.notes.join(' ')}</p> : null}
         </>
       ) : pick ? (
