@@ -1,5 +1,5 @@
 import { canonicalJson } from '../core/canonical-json';
-import { benchFit, type BenchFit } from '../core/bench-fit';
+import { benchFit, benchPointsLessGas, benchZeroSpeedOffset, type BenchFit } from '../core/bench-fit';
 import { benchTableRead, type BenchTableOptions, type BenchTableRun } from '../core/bench-table';
 import { clickSettingsText } from '../core/click-settings';
 import { InputError } from '../core/input-error';
@@ -26,6 +26,11 @@ export type BenchImportRequest = {
   stroke?: number;
   testFrequency?: number;
   temperature?: number;
+  /**
+   * Gas force (N) the readings include, subtracted from every reading before the points are
+   * stored and fitted, so the curve is the damping alone; the run's notes say so.
+   */
+  gasForce?: number;
   notes?: string;
   /** Import a file already imported for this damper (refused otherwise). */
   again?: boolean;
@@ -46,6 +51,17 @@ export type BenchImportResult = {
   warnings: string[];
 };
 
+/** The run with `gasForce` (N) taken off every reading; the raw trace, if any, stays as recorded. */
+function gasForceRemoved(run: BenchTableRun, gasForce: number | undefined): BenchTableRun {
+  return gasForce ? { ...run, points: benchPointsLessGas(run.points, gasForce) } : run;
+}
+
+function notesWithGasForce(notes: string, gasForce: number | undefined): string {
+  if (!gasForce) return notes;
+  const line = `Gas force of ${gasForce.toFixed(1)} N subtracted from every reading at import (a raw trace is kept as recorded).`;
+  return notes ? `${line} ${notes}` : line;
+}
+
 /** Peak velocity of a sine test, π·f·S (stroke S peak to peak). */
 function sinePeakVelocity(frequency: number, stroke: number): number {
   return Math.PI * frequency * stroke;
@@ -62,7 +78,7 @@ export function benchImport(store: Store, req: BenchImportRequest, now = new Dat
   let runs: BenchTableRun[];
   let fits: BenchFit[];
   try {
-    runs = benchTableRead(req.text, req.table);
+    runs = benchTableRead(req.text, req.table).map((r) => gasForceRemoved(r, req.gasForce));
     fits = runs.map((r) => benchFit(r.points, r.column ? `columns (${r.column})` : 'file'));
   } catch (e) {
     // Name the file in front of the line and column, unless the problem is an option's.
@@ -71,6 +87,17 @@ export function benchImport(store: Store, req: BenchImportRequest, now = new Dat
     throw e;
   }
   const warnings: string[] = [];
+  for (const r of runs) {
+    const offset = benchZeroSpeedOffset(r.points);
+    if (offset === null) continue;
+    const which = runs.length > 1 ? `run ${r.column || clickSettingsText(r.clicks)}: ` : '';
+    const about = `${which}the readings carry about ${offset.toFixed(0)} N at zero speed in both directions`;
+    warnings.push(
+      req.gasForce === undefined
+        ? `${about}, as a gas force included in them would: the fitted curve counts it as damping (give the gas force at import to subtract it)`
+        : `${about} after the ${req.gasForce.toFixed(0)} N gas force was subtracted: check the gas force and the compression sign`,
+    );
+  }
   if (req.stroke !== undefined && req.testFrequency !== undefined) {
     const expected = sinePeakVelocity(req.testFrequency, req.stroke);
     for (const r of runs) {
@@ -116,7 +143,7 @@ export function benchImport(store: Store, req: BenchImportRequest, now = new Dat
         trace_count: run.trace ? run.trace.time.length : null,
         trace: e.trace,
         fit_json: canonicalJson(fits[i]),
-        notes: req.notes ?? '',
+        notes: notesWithGasForce(req.notes ?? '', req.gasForce),
         imported_at: at,
       });
       return { id, column: run.column || clickSettingsText(run.clicks), run, fit: fits[i] as BenchFit };

@@ -164,6 +164,8 @@ export const benchImportInputSchema = z.strictObject({
   stroke: quantityInput,
   testFrequency: quantityInput,
   temperature: quantityInput,
+  /** The gas force the readings include, taken off every reading before it is stored and fitted. */
+  gasForce: quantityInput,
   notes: z.string().optional(),
   type: z.string().optional(),
   serial: z.string().optional(),

@@ -1,5 +1,5 @@
 import { csvHeaderRead, csvRowsPreview, type CsvHeader } from '../../core/bench-csv';
-import { benchFit } from '../../core/bench-fit';
+import { benchFit, benchPointsLessGas, benchZeroSpeedOffset } from '../../core/bench-fit';
 import {
   benchHeaderCellParse,
   benchTableRead,
@@ -69,6 +69,8 @@ export type BenchMapping = {
   stroke: string;
   testFrequency: string;
   temperature: string;
+  /** The gas force the readings include, taken off every reading at import. */
+  gasForce: string;
   notes: string;
   /** Import a file already imported for this damper once more. */
   again: boolean;
@@ -94,6 +96,7 @@ export function benchMappingDefault(preview: BenchFilePreview, damper = ''): Ben
     stroke: '',
     testFrequency: '',
     temperature: '',
+    gasForce: '',
     notes: '',
     again: false,
   };
@@ -116,6 +119,7 @@ const RUN_FIELDS = [
   { key: 'stroke', kind: 'length' },
   { key: 'testFrequency', kind: 'frequency' },
   { key: 'temperature', kind: 'temperature' },
+  { key: 'gasForce', kind: 'force' },
 ] as const satisfies readonly { key: keyof BenchMapping; kind: QuantityKind }[];
 
 /** The unit shown beside a run field in `system` (mm, Hz, °C). */
@@ -175,7 +179,11 @@ export function benchProblemText(e: InputError): string {
 
 /** What an import of the mapping would store, as core reads it here before anything is sent. */
 export type BenchMappingCheck =
-  | { ok: true; runs: { label: string; points: number; fitted: string }[] }
+  | {
+      ok: true;
+      /** `offset`: the force (N) the readings carry at zero speed once the gas force is off, if any. */
+      runs: { label: string; points: number; fitted: string; offset: number | null }[];
+    }
   | { ok: false; problems: Map<string, string> };
 
 /** Texts bigger than this are checked when imported, not as the mapping is edited. */
@@ -222,15 +230,23 @@ export function benchMappingCheck(
   options.columns = columns;
   options.units = units;
   if (clicks) options.clicks = clicks;
-  const runs: { label: string; points: number; fitted: string }[] = [];
+  const runs: { label: string; points: number; fitted: string; offset: number | null }[] = [];
+  const gasText = quantityFieldValue(mapping.gasForce, 'force', system);
+  const gas =
+    gasText === undefined || problems.has('gasForce')
+      ? undefined
+      : quantityParse(gasText, 'force', 'gasForce');
   try {
-    for (const run of benchTableRead(preview.text, options)) {
+    for (const read of benchTableRead(preview.text, options)) {
+      // The same correction the import makes, so the fit and the offset are those it would store.
+      const run = gas === undefined ? read : { ...read, points: benchPointsLessGas(read.points, gas) };
       const fit = benchFit(run.points);
       const dirs = [fit.bump ? 'bump' : '', fit.rebound ? 'rebound' : ''].filter(Boolean).join(' and ');
       runs.push({
         label: clickSettingsText(run.clicks) || 'no clicks recorded',
         points: run.points.velocity.length,
         fitted: dirs,
+        offset: benchZeroSpeedOffset(run.points),
       });
     }
   } catch (e) {

@@ -45,6 +45,19 @@ describe('bench handlers', () => {
     expect(list.runs.map((r) => r.id)).toEqual([run?.id]);
   });
 
+  it('takes the gas force given in any force unit off every reading', async () => {
+    const ctx = freshContext();
+    const out = await apiCall(
+      'benchImport',
+      { damper: 'D-1', source: { text: TABLE, name: 'sweep.csv' }, gasForce: '20 lbf' },
+      ctx,
+    );
+    // NIST SP 811 [pub]: 1 lbf = 4.4482216152605 N, so 20 lbf = 88.96 N off −1500 N.
+    const shown = await apiCall('benchShow', { run: out.runs[0]?.id as number, points: true }, ctx);
+    expect(shown.points?.[0]?.[1]).toBeCloseTo(-1500 - 20 * 4.4482216152605, 9);
+    expect(shown.run.notes).toMatch(/^Gas force of 89\.0 N subtracted from every reading at import/);
+  });
+
   const bad: [string, Record<string, unknown>, RegExp][] = [
     ['a label with a control character', { damper: 'D\u00071' }, /^damper: contains a control character/],
     ['an empty label', { damper: ' ' }, /^damper: is empty/],
@@ -52,6 +65,8 @@ describe('bench handlers', () => {
     ['an odd clicks text', { clicks: 'bump' }, /^clicks: got "bump"; expected adjuster–click pairs/],
     ['a stroke in kilograms', { stroke: '50 kg' }, /^stroke: got "50 kg" \(a mass\); expected a length/],
     ['a negative frequency', { testFrequency: '-2 Hz' }, /^testFrequency: must be greater than zero/],
+    ['a gas force of nothing', { gasForce: '0 N' }, /^gasForce: must be greater than zero/],
+    ['a gas force in metres', { gasForce: '12 m' }, /^gasForce: got "12 m" \(a length\); expected a force/],
     ['a date that is no day', { date: '2025-13-01' }, /^date: "2025-13-01" is not a day/],
     ['a compression sign in words', { compression: 'up' }, /^compression: /],
     [

@@ -60,6 +60,31 @@ describe('benchImport', () => {
     ]);
   });
 
+  it('takes a gas force off every reading, says so on the run, and warns of one left in', () => {
+    const store = freshStore();
+    // Readings that include 150 N of gas force: imported as they are, the import says so.
+    const text = benchPointTable(81, { offset: 150 });
+    const raw = importing(store, text);
+    expect(raw.warnings).toHaveLength(1);
+    expect(raw.warnings[0]).toMatch(/carry about 150 N at zero speed in both directions, as a gas force/);
+    // With the gas force given: the points and the fit are the damping alone.
+    const less = importing(store, text, { gasForce: 150, again: true, notes: 'on the shop bench' });
+    expect(less.warnings).toEqual([]);
+    const row = benchRunById(store.db, less.runs[0]?.id as number);
+    const points = benchPointsDecode(row?.points as Buffer);
+    const first = benchPointsDecode(benchRunById(store.db, raw.runs[0]?.id as number)?.points as Buffer);
+    expect(points.force[0]).toBeCloseTo((first.force[0] as number) - 150, 9);
+    const fit = JSON.parse(row?.fit_json as string);
+    expect(fit.bump.curve.lowSpeed).toBeCloseTo(3000, 0);
+    expect(fit.rebound.curve.lowSpeed).toBeCloseTo(6000, 0);
+    expect(row?.notes).toBe(
+      'Gas force of 150.0 N subtracted from every reading at import (a raw trace is kept as recorded). on the shop bench',
+    );
+    // A wrong gas force leaves an offset the import names.
+    const wrong = importing(store, text, { gasForce: 60, again: true });
+    expect(wrong.warnings[0]).toMatch(/about 90 N at zero speed in both directions after the 60 N gas force/);
+  });
+
   it('refuses the same file twice for a unit unless asked', () => {
     const store = freshStore();
     const text = benchPointTable(20);

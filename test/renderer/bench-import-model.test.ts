@@ -15,6 +15,7 @@ import {
 import { InputError } from '../../core/input-error';
 import { storeDigest } from '../db/store-fixture';
 import { freshContext } from '../api/api-fixture';
+import { benchPointTable } from '../db/bench-fixture';
 
 const demo = (name: string) =>
   benchFilePreview(name, readFileSync(new URL(`../../assets/demo/bench/${name}`, import.meta.url), 'utf8'));
@@ -87,6 +88,19 @@ describe('the mapping check (core’s reader, before anything is sent)', () => {
     expect(c.runs.every((r) => r.points === 22 && r.fitted === 'bump and rebound')).toBe(true);
   });
 
+  it('points out a gas force in the readings, and the fit without it once it is entered', () => {
+    const demoRuns = benchMappingCheck(POINTS, mappingOf(POINTS), 'si');
+    expect(demoRuns.ok && demoRuns.runs.every((r) => r.offset === null)).toBe(true);
+    const gassy = benchFilePreview('gas.csv', benchPointTable(81, { offset: 150 }));
+    const raw = benchMappingCheck(gassy, mappingOf(gassy), 'si');
+    expect(raw.ok && raw.runs[0]?.offset).toBeCloseTo(150, 0);
+    // 150 N is 33.72 lbf (1 lbf = 4.4482216152605 N, NIST SP 811 [pub]), typed in US units.
+    const less = benchMappingCheck(gassy, mappingOf(gassy, { gasForce: '33.72' }), 'us');
+    expect(less.ok && less.runs[0]?.offset).toBeNull();
+    expect(benchImportInput(gassy, mappingOf(gassy, { gasForce: '33.72' }), 'us').gasForce).toBe('33.72 lbf');
+    expect(problemsOf(gassy, { gasForce: '-5' }).get('gasForce')).toMatch(/greater than zero/);
+  });
+
   it('reads one chosen pair as one run, with the clicks given', () => {
     const c = benchMappingCheck(
       POINTS,
@@ -109,7 +123,9 @@ describe('the mapping check (core’s reader, before anything is sent)', () => {
       mappingOf(TRACE, { compression: 'negative', clicks: 'rebound 4' }),
       'si',
     );
-    expect(c.ok && c.runs).toEqual([{ label: 'rebound 4', points: 48, fitted: 'bump and rebound' }]);
+    expect(c.ok && c.runs).toEqual([
+      { label: 'rebound 4', points: 48, fitted: 'bump and rebound', offset: null },
+    ]);
   });
 
   it('names the field for a bad damper label, date, clicks, stroke and temperature', () => {

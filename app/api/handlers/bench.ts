@@ -68,6 +68,8 @@ export function benchImportHandler(
   if (testFrequency !== undefined) request.testFrequency = testFrequency;
   const temperature = positiveQuantity(input.temperature, 'temperature', 'temperature');
   if (temperature !== undefined) request.temperature = temperature;
+  const gasForce = positiveQuantity(input.gasForce, 'force', 'gasForce');
+  if (gasForce !== undefined) request.gasForce = gasForce;
   if (unit.notes) request.notes = unit.notes;
   if (input.again) request.again = true;
   const result = benchImport(store, request);

@@ -24,6 +24,8 @@ rideledger [--db FILE] bench show RUN [--points] [--units si|us] [--json]
   --velocity-unit in/s --force-unit lbf --time-unit ms --displacement-unit mm
   --velocity-column NAME --force-column NAME --time-column NAME --displacement-column NAME
   --compression positive|negative  the sign the file gives compression (default positive)
+  --gas-force "120 N"              the gas force the readings include: taken off every reading
+                                   before the points are stored and fitted (noted on the run)
   --trace | --points               read the file as that kind (default: from the header)
   --smoothing N                    trace velocity window: N samples each side (default 3)
   --bins N                         trace speed bins per direction (default 24)
@@ -77,6 +79,7 @@ export async function benchCommand(args: string[], io: CliIo): Promise<number> {
     stroke: { type: 'string' },
     frequency: { type: 'string' },
     temperature: { type: 'string' },
+    'gas-force': { type: 'string' },
     notes: { type: 'string' },
     type: { type: 'string' },
     serial: { type: 'string' },
@@ -141,6 +144,7 @@ export async function benchCommand(args: string[], io: CliIo): Promise<number> {
         stroke: quantityOption(values.stroke),
         testFrequency: quantityOption(values.frequency),
         temperature: quantityOption(values.temperature),
+        gasForce: quantityOption(values['gas-force']),
         notes: values.notes,
         type: values.type,
         serial: values.serial,

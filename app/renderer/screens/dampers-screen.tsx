@@ -395,6 +395,7 @@ function ImportPanel(props: {
       ...m,
       stroke: quantityFieldConvert(m.stroke, 'length', from, units),
       temperature: quantityFieldConvert(m.temperature, 'temperature', from, units),
+      gasForce: quantityFieldConvert(m.gasForce, 'force', from, units),
     }));
     mappingUnits.current = units;
   }, [units]);
@@ -433,7 +434,7 @@ function ImportPanel(props: {
   };
 
   const text = (
-    key: 'date' | 'stroke' | 'testFrequency' | 'temperature' | 'clicks' | 'notes',
+    key: 'date' | 'stroke' | 'testFrequency' | 'temperature' | 'gasForce' | 'clicks' | 'notes',
     label: string,
     unit: string,
     placeholder?: string,
@@ -446,7 +447,7 @@ function ImportPanel(props: {
       unit={unit}
       problem={problems.get(key)}
       placeholder={placeholder}
-      numeric={key === 'stroke' || key === 'testFrequency' || key === 'temperature'}
+      numeric={key === 'stroke' || key === 'testFrequency' || key === 'temperature' || key === 'gasForce'}
       onChange={(t) => set({ [key]: t })}
     />
   );
@@ -598,6 +599,7 @@ function ImportPanel(props: {
           {text('stroke', 'Stroke', benchRunFieldUnit('stroke', units))}
           {text('testFrequency', 'Test frequency', benchRunFieldUnit('testFrequency', units))}
           {text('temperature', 'Temperature', benchRunFieldUnit('temperature', units))}
+          {text('gasForce', 'Gas force in the readings', benchRunFieldUnit('gasForce', units))}
           {text('notes', 'Notes', '')}
           <label>
             <input
@@ -616,6 +618,13 @@ function ImportPanel(props: {
           <p className="status">
             Reads as {check.runs.length} run{check.runs.length === 1 ? '' : 's'}:{' '}
             {check.runs.map((r) => `${r.label} (${r.points} points, fitted in ${r.fitted})`).join('; ')}.
+            {check.runs.some((r) => r.offset !== null)
+              ? ` The readings carry about ${quantityFormat(
+                  check.runs.find((r) => r.offset !== null)?.offset ?? 0,
+                  'force',
+                  units,
+                )} at zero speed in both directions, as a gas force included in them would: enter it under Gas force to take it off, or the fitted curve counts it as damping.`
+              : ''}
           </p>
         ) : problems.has('file') ? (
           <p className="status error" role="alert">
