@@ -116,8 +116,12 @@ export const VALVING_HEADLINE_SENSE: Record<
 /** A change judged by its figure's sense; null where the figure has none or a value is missing. */
 export type ValvingVerdict = 'better' | 'worse' | 'same' | null;
 
-/** Changes smaller than this, relative, are no change. */
-const SAME_RELATIVE = 1e-6;
+/**
+ * Changes smaller than this, relative to the larger of the two values, are called the same:
+ * half a percent, below what the inputs of a setup (weights, rates, curves measured on a bench)
+ * can tell apart — our judgement, not a published figure. Tables print the change to 0.1 %.
+ */
+export const VALVING_SAME_RELATIVE = 0.005;
 
 function bandDistance(v: number, t: { low: number | null; high: number | null }): number {
   if (t.low !== null && v < t.low) return t.low - v;
@@ -141,13 +145,13 @@ export function valvingHeadlineVerdict(
   const scale = Math.max(Math.abs(before), Math.abs(after), Number.MIN_VALUE);
   if (s.sense === 'none') return null;
   if (s.sense === 'lower') {
-    if (Math.abs(after - before) <= SAME_RELATIVE * scale) return 'same';
+    if (Math.abs(after - before) <= VALVING_SAME_RELATIVE * scale) return 'same';
     return after < before ? 'better' : 'worse';
   }
   const t = targets[s.target];
   if (!t || (t.low === null && t.high === null)) return null;
   const da = bandDistance(before, t);
   const db = bandDistance(after, t);
-  if (Math.abs(db - da) <= SAME_RELATIVE * scale) return 'same';
+  if (Math.abs(db - da) <= VALVING_SAME_RELATIVE * scale) return 'same';
   return db < da ? 'better' : 'worse';
 }

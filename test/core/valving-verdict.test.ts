@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { VALVING_HEADLINE_SENSE, valvingHeadlineVerdict } from '../../core/valving-compare';
+import {
+  VALVING_HEADLINE_SENSE,
+  VALVING_SAME_RELATIVE,
+  valvingHeadlineVerdict,
+} from '../../core/valving-compare';
 import { VALVING_HEADLINE_KEYS } from '../../core/valving-rank';
 import { VALVING_PRESETS } from '../../core/valving-presets';
 
@@ -15,6 +19,14 @@ describe('valvingHeadlineVerdict', () => {
     expect(valvingHeadlineVerdict('roadTireLoad', 0.2, 0.25, targets)).toBe('worse');
     expect(valvingHeadlineVerdict('bumpAirborneTime', 0, 0, targets)).toBe('same');
     expect(valvingHeadlineVerdict('curbPeakAccel', 10, 10 * (1 + 1e-9), targets)).toBe('same');
+  });
+
+  it('calls a change under half a percent the same, and one just over it a change', () => {
+    expect(VALVING_SAME_RELATIVE).toBe(0.005);
+    // 0.0912 → 0.0916 in is +0.4 %: no change worth a verdict.
+    expect(valvingHeadlineVerdict('roadTravel', 0.0912, 0.0916, targets)).toBe('same');
+    expect(valvingHeadlineVerdict('roadTravel', 0.0912, 0.0912 * 1.006, targets)).toBe('worse');
+    expect(valvingHeadlineVerdict('roadTravel', 0.0912 * 1.006, 0.0912, targets)).toBe('better');
   });
 
   it('calls a damping ratio better as it comes nearer its band, and the same anywhere inside it', () => {
