@@ -260,6 +260,32 @@ describe('rideledger, given bad input', () => {
       /--velocity-unit: "psi" is not a unit of velocity/,
     ],
     [
+      'a gas force in kilograms, naming the option typed',
+      () => [
+        'bench',
+        'import',
+        join(DEMO, 'bench', 'mb-da-1-bump-0.csv'),
+        '--damper',
+        'NEW-2',
+        '--gas-force',
+        '27 kg',
+      ],
+      /^rideledger bench: --gas-force: got "27 kg" \(a mass\); expected a force/,
+    ],
+    [
+      'a test frequency that is no frequency',
+      () => [
+        'bench',
+        'import',
+        join(DEMO, 'bench', 'mb-da-1-bump-0.csv'),
+        '--damper',
+        'NEW-2',
+        '--frequency',
+        '2 m',
+      ],
+      /^rideledger bench: --frequency: got "2 m" \(a length\); expected a frequency/,
+    ],
+    [
       'a bench file imported twice',
       () => ['bench', 'import', join(DEMO, 'bench', 'mb-da-1-bump-0.csv'), '--damper', 'MB-DA-1'],
       /already imported for damper "MB-DA-1"/,

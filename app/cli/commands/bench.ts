@@ -1,3 +1,4 @@
+import { InputError } from '../../../core/input-error';
 import { clickSettingsText } from '../../../core/click-settings';
 import { numberFormat, quantityFormat, type UnitSystem } from '../../../core/units';
 import { apiCall } from '../../api/call';
@@ -33,6 +34,20 @@ rideledger [--db FILE] bench show RUN [--points] [--units si|us] [--json]
   --again                          import a file already imported for this unit`;
 
 type RunView = HandlerOutput<'benchList'>['runs'][number];
+
+/** The import's fields as the API names them, and the options that give them. */
+const IMPORT_OPTION_OF: Readonly<Record<string, string>> = {
+  stroke: '--stroke',
+  testFrequency: '--frequency',
+  temperature: '--temperature',
+  gasForce: '--gas-force',
+  clicks: '--clicks',
+  date: '--date',
+  damper: '--damper',
+  type: '--type',
+  serial: '--serial',
+  notes: '--notes',
+};
 
 function fitText(run: RunView, dir: 'bump' | 'rebound', system: UnitSystem): string {
   const f = run.fit[dir];
@@ -153,7 +168,13 @@ export async function benchCommand(args: string[], io: CliIo): Promise<number> {
         bins: wholeNumberOption(values.bins, '--bins'),
       };
       for (const k of Object.keys(input)) if (input[k] === undefined) delete input[k];
-      const out = await withStore(values.db, io, 'write', (ctx) => apiCall('benchImport', input, ctx));
+      const out = await withStore(values.db, io, 'write', (ctx) => apiCall('benchImport', input, ctx)).catch(
+        (e: unknown) => {
+          // The API names its fields; the command's user typed options.
+          const option = e instanceof InputError ? IMPORT_OPTION_OF[e.field] : undefined;
+          throw option ? new InputError(option, (e as InputError).problem) : e;
+        },
+      );
       if (values.json) io.stdout(json(out));
       else {
         const lines = [
