@@ -331,7 +331,7 @@ export function ValvingScreen() {
   // null until the bench library has answered: the map waits for it, so it is asked for once.
   const [dampers, setDampers] = useState<string[] | null>(null);
   const [damper, setDamper] = useState('');
-  // The revision (vehicle#number) the damper was chosen for: a new revision picks its own unit.
+  // The vehicle the damper was chosen for: another vehicle starts on its own corners' unit.
   const [damperFor, setDamperFor] = useState<string | null>(null);
   const [interpolate, setInterpolate] = useState(false);
   const [mapCorner, setMapCorner] = useState<CornerPosition>('FL');
@@ -378,8 +378,9 @@ export function ValvingScreen() {
 
   const mapVehicle = pick?.vehicle;
   const mapRevision = pick?.revision;
-  const pickKey = pick ? `${pick.vehicle}#${pick.revision}` : null;
-  // Start each revision on the unit its corners record, the map's corner first, among the units
+  // Chosen once a vehicle: a change of revision keeps the unit the user has picked.
+  const pickKey = pick ? pick.vehicle : null;
+  // Start each vehicle on the unit its corners record, the map's corner first, among the units
   // with bench data; a corner's recorded unit may have none yet, and then the first that has.
   useEffect(() => {
     if (mapVehicle === undefined || mapRevision === undefined || dampers === null || pickKey === null) return;
