@@ -3,6 +3,7 @@ import { InputError } from '../core/input-error';
 import { setupDiff, setupDiffSummary } from '../core/setup-diff';
 import { CORNER_POSITIONS, type SetupSheet } from '../core/setup-sheet';
 import { nameKey } from '../core/text-field';
+import type { UnitSystem } from '../core/units';
 import { damperUnitEnsure } from './damper-units';
 import { setupCornerInsert, setupCornersOf } from './queries/setup-corner';
 import {
@@ -65,7 +66,7 @@ export function setupSave(
   store: Store,
   vehicle: VehicleRow,
   sheet: SetupSheet,
-  options: { parentNumber?: number; now?: Date } = {},
+  options: { parentNumber?: number; now?: Date; units?: UnitSystem } = {},
 ): SetupSaveResult {
   const db = store.db;
   return storeTransaction(store, () => {
@@ -75,7 +76,8 @@ export function setupSave(
       options.parentNumber === undefined
         ? latest
         : setupRevisionResolve(db, vehicle, options.parentNumber, 'basedOnRevision');
-    const diff = parent ? setupDiff(setupSheetRead(db, parent), sheet) : null;
+    // The summary is written in the units the sheet was entered in; what is stored is SI.
+    const diff = parent ? setupDiff(setupSheetRead(db, parent), sheet, options.units ?? 'si') : null;
     // A copy of its parent would only be a revision that says "no changes".
     if (parent && diff && diff.fields.length === 0)
       throw new InputError(

@@ -82,6 +82,8 @@ export const contract = {
       file: z.unknown(),
       vehicle: vehicleRefSchema.optional(),
       basedOnRevision: z.number().int().positive().optional(),
+      /** The unit system the summary of what changed is written in (the sheet is stored SI). */
+      units: unitSystemSchema,
     }),
     output: z.strictObject({
       vehicle: vehicleNamed,

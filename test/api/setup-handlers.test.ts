@@ -97,6 +97,27 @@ describe('setups through the API', () => {
     expect(d.caution).toBe(CAUTION_TEXT);
   });
 
+  it('writes the line saying what changed in the units the sheet was entered in', async () => {
+    const ctx = await withCoupe();
+    const file = setupFileFixture();
+    file.corners.FL.corner.springRate = '400 lbf/in';
+    await apiCall('setupSave', { file, units: 'us' }, ctx);
+    file.corners.FL.corner.springRate = '500 lbf/in';
+    const us = await apiCall('setupSave', { file, units: 'us' }, ctx);
+    expect(us.revision.summary).toBe('spring rate FL 400→500 lbf/in');
+    // The same change saved from SI: 500 → 450 lbf/in is 87.5634 → 78.8071 N/mm (1 lbf/in = 0.175127 N/mm) [calc].
+    file.corners.FL.corner.springRate = '450 lbf/in';
+    const si = await apiCall('setupSave', { file }, ctx);
+    expect(si.revision.summary).toBe('spring rate FL 87.6→78.8 N/mm');
+    // Stored SI either way: the diff of the two is the same in any units.
+    const d = await apiCall(
+      'setupDiff',
+      { a: { vehicle: 'Test coupe', revision: 1 }, b: { vehicle: 'Test coupe', revision: 2 }, units: 'us' },
+      ctx,
+    );
+    expect(d.fields.map((f) => [f.before, f.after, f.unit])).toEqual([['400', '500', 'lbf/in']]);
+  });
+
   it('shows a revision as a setup file whose unchanged save is refused: the round trip is exact', async () => {
     const ctx = await withCoupe();
     await apiCall('setupSave', { file: setupFileFixture() }, ctx);

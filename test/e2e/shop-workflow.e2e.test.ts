@@ -115,7 +115,8 @@ describe.skipIf(!chromium)('the shop workflow in a real Chromium', () => {
     const fr = page.getByRole('group', { name: /\(FR\)$/ });
     await fr.getByLabel('Spring rate *').fill('500');
     await page.getByRole('button', { name: 'Save as new revision' }).click();
-    await page.getByText(/Saved as revision #2/).waitFor();
+    // The line saying what changed speaks the units the sheet was entered in.
+    await page.getByText('Saved as revision #2: spring rate front 400→500 lbf/in').waitFor();
     // Saving again untouched adds nothing.
     await page.getByRole('button', { name: 'Save as new revision' }).click();
     await page.getByText('Nothing to save: the sheet is as revision #2 has it.').waitFor();

@@ -79,7 +79,7 @@ export function loadDemo(
       vehicleAdd({ name: v.name, kind: v.kind, notes: v.notes }, context);
       for (const file of v.revisions) {
         const content = JSON.parse(readFileSync(`${DEMO_DIR}${file}`, 'utf8')) as unknown;
-        setupSaveHandler({ file: content }, context);
+        setupSaveHandler({ file: content, units: 'si' }, context);
       }
     }
     storeEventInsert(store.db, { at, kind: 'demo-loaded', detail: `the invented ${demo.shop} demo shop` });

@@ -56,7 +56,10 @@ export function setupSaveHandler(
       );
   }
   const parentNumber = input.basedOnRevision ?? file.basedOnRevision;
-  const saved = setupSave(store, v, file.sheet, parentNumber === undefined ? {} : { parentNumber });
+  const saved = setupSave(store, v, file.sheet, {
+    units: input.units,
+    ...(parentNumber === undefined ? {} : { parentNumber }),
+  });
   return {
     vehicle: { id: v.id, name: v.name },
     revision: revisionViewOf(saved.revision, saved.parentNumber),

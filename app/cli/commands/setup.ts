@@ -16,14 +16,15 @@ import { withStore } from '../store-session';
 import { tableFormat, textWrap } from '../table';
 import { unitSystemParse } from './analyze';
 
-export const SETUP_USAGE = `rideledger [--db FILE] setup save FILE [--vehicle NAME] [--based-on N] [--json]
+export const SETUP_USAGE = `rideledger [--db FILE] setup save FILE [--vehicle NAME] [--based-on N] [--units si|us] [--json]
 rideledger [--db FILE] setup show VEHICLE[@N] [--units si|us] [--file] [--out FILE [--force]] [--json]
 rideledger [--db FILE] setup history VEHICLE [--json]
 rideledger [--db FILE] setup diff VEHICLE@A [VEHICLE@B] [--vehicle NAME] [--units si|us] [--json]
 
   save     stores a setup file (format "rideledger-setup") as a new revision; nothing is
            ever overwritten. The parent is the newest revision, or the file's
-           "basedOnRevision", or --based-on N.
+           "basedOnRevision", or --based-on N. The line saying what changed is written in
+           --units (the sheet itself is stored SI); a copy of the parent is refused.
   show     a revision (the newest without @N) with each corner's ride figures; --file prints
            it as a setup file, --out FILE writes that file (edit it and save it again).
   history  every revision with date, event, name and what changed.
@@ -221,6 +222,7 @@ export async function setupCommand(args: string[], io: CliIo): Promise<number> {
       const input: Record<string, unknown> = { file };
       if (values.vehicle !== undefined) input.vehicle = values.vehicle;
       if (basedOn !== undefined) input.basedOnRevision = Number(basedOn);
+      input.units = units;
       const out = await withStore(values.db, io, 'write', (ctx) => apiCall('setupSave', input, ctx));
       if (values.json) io.stdout(json(out));
       else {

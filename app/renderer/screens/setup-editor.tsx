@@ -373,6 +373,7 @@ export function SetupEditor() {
         file: setupFormToFile(form),
         vehicle: open.vehicle,
         ...(basedOn !== undefined ? { basedOnRevision: basedOn } : {}),
+        units: form.system,
       });
       await apiCall('settingSet', { key: draftKey(open.vehicle), value: null });
       setBasedOn(r.revision.number);
