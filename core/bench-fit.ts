@@ -1,6 +1,7 @@
 import { benchPointsBinned, type BenchPoints } from './bench-trace';
 import { damperDirectionFit, type DamperDirectionFit, type DamperPoint } from './damper-curve';
 import { InputError } from './input-error';
+import { quantityFormat, type UnitSystem } from './units';
 
 /**
  * A bench run's fitted curve: a bilinear fit per direction (null where the run has too few
@@ -166,6 +167,17 @@ export function benchZeroSpeedOffset(points: BenchPoints): number | null {
   }
   const offset = (lo + hi) / 2;
   return Math.abs(offset) > BENCH_OFFSET_SHARE * largest ? offset : null;
+}
+
+/**
+ * Words for a run's zero-speed offset (N) in `units`: before any gas force was taken off, or
+ * left after `gasForce` (N) was.
+ */
+export function benchOffsetText(offset: number, gasForce: number | undefined, units: UnitSystem): string {
+  const about = `the readings carry about ${quantityFormat(offset, 'force', units)} at zero speed in both directions`;
+  return gasForce === undefined
+    ? `${about}, as a gas force included in them would: the fitted curve counts it as damping (give the gas force at import to take it off)`
+    : `${about} after the ${quantityFormat(gasForce, 'force', units)} gas force was taken off: check the gas force and the compression sign`;
 }
 
 /** A run's points with `gasForce` (N) taken off every reading: the damping force alone. */

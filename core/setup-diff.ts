@@ -222,15 +222,17 @@ function shortText(text: string | null, max = 24): string {
   return [...text].length > max ? `${[...text].slice(0, max - 1).join('')}…` : text;
 }
 
+/** A change's path within its corner (`springLabel`), or the vehicle-level path. */
+const relativePath = (c: SetupFieldChange) => c.field.replace(/^corners\.(FL|FR|RL|RR)\./, '');
+
 /**
- * The two numbers of a change as short as they can be and still differ: 3 significant figures,
- * more only where 3 would show them equal (400 → 500 lbf/in stored as 70.0507 → 87.5634 N/mm
- * reads "70.1→87.6"). Texts that are not numbers are left as they are.
+ * A change's before and after as people read them: texts as they are; numbers as short as
+ * they can be and still differ — 3 significant figures, more only where 3 would show them
+ * equal (400 → 500 lbf/in stored as 70.0507 → 87.5634 N/mm reads "70.1→87.6").
  */
-export function setupChangeNumbersText(
-  before: string | null,
-  after: string | null,
-): [string | null, string | null] {
+export function setupChangeText(c: SetupFieldChange): [string | null, string | null] {
+  const { before, after } = c;
+  if (TEXT_PATHS.has(relativePath(c))) return [before, after];
   const number = (t: string | null) => (t === null || t.trim() === '' ? null : Number(t));
   const a = number(before);
   const b = number(after);
@@ -253,7 +255,7 @@ export function setupChangeNumbersText(
 export function setupDiffSummary(diff: SetupDiff, maxLength = 160): string {
   const groups = new Map<string, { text: (where: string) => string; positions: CornerPosition[] }>();
   for (const c of diff.fields) {
-    const relative = c.position ? c.field.slice(`corners.${c.position}.`.length) : c.field;
+    const relative = relativePath(c);
     // Name, event and date are columns of their own in the history; notes are named, not quoted.
     if (relative === 'name' || relative === 'event' || relative === 'date') continue;
     const isNotes = relative === 'notes';
@@ -262,7 +264,7 @@ export function setupDiffSummary(diff: SetupDiff, maxLength = 160): string {
       ? ''
       : TEXT_PATHS.has(relative)
         ? ` "${shortText(c.after)}"`
-        : ` ${setupChangeNumbersText(c.before, c.after)
+        : ` ${setupChangeText(c)
             .map((t) => shortText(t))
             .join('→')}${c.unit && c.unit !== 'clicks' ? ` ${c.unit}` : ''}`;
     const g = groups.get(key) ?? { text: (where: string) => `${c.label}${where}${values}`, positions: [] };

@@ -1,5 +1,11 @@
 import { canonicalJson } from '../core/canonical-json';
-import { benchFit, benchPointsLessGas, benchZeroSpeedOffset, type BenchFit } from '../core/bench-fit';
+import {
+  benchFit,
+  benchOffsetText,
+  benchPointsLessGas,
+  benchZeroSpeedOffset,
+  type BenchFit,
+} from '../core/bench-fit';
 import { benchTableRead, type BenchTableOptions, type BenchTableRun } from '../core/bench-table';
 import { clickSettingsText } from '../core/click-settings';
 import { InputError } from '../core/input-error';
@@ -91,12 +97,7 @@ export function benchImport(store: Store, req: BenchImportRequest, now = new Dat
     const offset = benchZeroSpeedOffset(r.points);
     if (offset === null) continue;
     const which = runs.length > 1 ? `run ${r.column || clickSettingsText(r.clicks)}: ` : '';
-    const about = `${which}the readings carry about ${offset.toFixed(0)} N at zero speed in both directions`;
-    warnings.push(
-      req.gasForce === undefined
-        ? `${about}, as a gas force included in them would: the fitted curve counts it as damping (give the gas force at import to subtract it)`
-        : `${about} after the ${req.gasForce.toFixed(0)} N gas force was subtracted: check the gas force and the compression sign`,
-    );
+    warnings.push(`${which}${benchOffsetText(offset, req.gasForce, 'si')}`);
   }
   if (req.stroke !== undefined && req.testFrequency !== undefined) {
     const expected = sinePeakVelocity(req.testFrequency, req.stroke);

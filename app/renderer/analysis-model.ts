@@ -221,6 +221,10 @@ export function setupAnalyze(
     const sim = eventSimulate(corner, event, { historyPoints: HISTORY_POINTS });
     const h = sim.history;
     if (!h) throw new Error('the simulation returned no history');
+    const warningsIn = (units: UnitSystem) => [
+      ...cornerWarnings(linear.figures, linear.modes, linear.step, units),
+      ...eventWarnings(corner, event, sim.metrics, units),
+    ];
     partial[p] = {
       position: p,
       figures: linear.figures,
@@ -229,13 +233,7 @@ export function setupAnalyze(
       randomRoad: linear.randomRoad as RandomRoadResponse,
       bump: sim.metrics,
       // Both systems now, so the units switch rewrites the words without running anything again.
-      warnings: {
-        si: [...linear.warnings, ...eventWarnings(corner, event, sim.metrics, 'si')],
-        us: [
-          ...cornerWarnings(linear.figures, linear.modes, linear.step, 'us'),
-          ...eventWarnings(corner, event, sim.metrics, 'us'),
-        ],
-      },
+      warnings: { si: warningsIn('si'), us: warningsIn('us') },
       bumpHistory: { time: h.time, bodyAccel: h.bodyAccel, travel: h.travel, tireLoad: h.tireLoad },
       frf: linear.frf,
     };

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { setupChangeNumbersText, setupDiff, setupDiffSummary } from '../../core/setup-diff';
+import { setupChangeText, setupDiff, setupDiffSummary, type SetupFieldChange } from '../../core/setup-diff';
 import { setupFileParse, setupFileWrite } from '../../core/setup-file';
 import type { SetupSheet } from '../../core/setup-sheet';
 import { setupFileFixture } from './setup-fixture';
@@ -175,11 +175,25 @@ describe('setupDiffSummary', () => {
   });
 
   it('leaves dates, texts and an absent side alone when shortening', () => {
-    expect(setupChangeNumbersText('399.71', '456.812')).toEqual(['400', '457']);
-    expect(setupChangeNumbersText('2025-03-22', '2025-04-12')).toEqual(['2025-03-22', '2025-04-12']);
-    expect(setupChangeNumbersText('hole 1 of 5', 'disconnected')).toEqual(['hole 1 of 5', 'disconnected']);
-    expect(setupChangeNumbersText(null, '12.3456')).toEqual([null, '12.3']);
-    expect(setupChangeNumbersText('-2.8', '-3.2')).toEqual(['-2.8', '-3.2']);
+    const change = (field: string, before: string | null, after: string | null): SetupFieldChange => ({
+      field,
+      label: field,
+      before,
+      after,
+      unit: '',
+    });
+    const rate = (b: string | null, a: string | null) =>
+      setupChangeText(change('corners.FL.corner.springRate', b, a));
+    expect(rate('399.71', '456.812')).toEqual(['400', '457']);
+    expect(rate(null, '12.3456')).toEqual([null, '12.3']);
+    expect(rate('-2.8', '-3.2')).toEqual(['-2.8', '-3.2']);
+    expect(setupChangeText(change('date', '2025-03-22', '2025-04-12'))).toEqual(['2025-03-22', '2025-04-12']);
+    // A text field that happens to read as a number is a text: kept exactly.
+    expect(setupChangeText(change('corners.FL.springLabel', '0080', '0090.50'))).toEqual(['0080', '0090.50']);
+    expect(setupChangeText(change('antiRollBar.front', 'hole 1 of 5', 'off'))).toEqual([
+      'hole 1 of 5',
+      'off',
+    ]);
   });
 
   it('says "no setup changes" when only the name, event or date changed', () => {

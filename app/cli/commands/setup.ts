@@ -1,4 +1,4 @@
-import { setupChangeNumbersText } from '../../../core/setup-diff';
+import { setupChangeText } from '../../../core/setup-diff';
 import { CAUTION_TEXT } from '../../../core/caution';
 import { clickSettingsText } from '../../../core/click-settings';
 import { damperDirectionSlopes } from '../../../core/damper-curve';
@@ -141,7 +141,7 @@ function diffHuman(out: HandlerOutput<'setupDiff'>): string {
       tableFormat([
         ['field', 'before', 'after', 'unit'],
         ...quantities.map((f) => {
-          const [before, after] = setupChangeNumbersText(f.before, f.after);
+          const [before, after] = setupChangeText(f);
           return [label(f), before ?? '—', after ?? '—', f.unit];
         }),
       ]),

@@ -1,3 +1,4 @@
+import { benchOffsetText } from '../../../core/bench-fit';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { cornerSprungMass, cornerWheelRate, type CornerInput } from '../../../core/corner';
 import { InputError } from '../../../core/input-error';
@@ -51,6 +52,14 @@ const MAX_SHOWN = 6;
 const DEFAULT_SHOWN = 4;
 
 const orDash = (v: number | null, f: (v: number) => string) => (v === null ? '—' : f(v));
+
+/** The first run's zero-speed offset in words, as the import would report it; "" without one. */
+function offsetNote(runs: readonly { label: string; offset: number | null }[], units: UnitSystem): string {
+  const r = runs.find((x) => x.offset !== null);
+  return r
+    ? ` ${r.label}: ${benchOffsetText(r.offset as number, undefined, units)} (enter it under Gas force).`
+    : '';
+}
 
 function RunsTable(props: {
   runs: BenchRun[];
@@ -618,13 +627,7 @@ function ImportPanel(props: {
           <p className="status">
             Reads as {check.runs.length} run{check.runs.length === 1 ? '' : 's'}:{' '}
             {check.runs.map((r) => `${r.label} (${r.points} points, fitted in ${r.fitted})`).join('; ')}.
-            {check.runs.some((r) => r.offset !== null)
-              ? ` The readings carry about ${quantityFormat(
-                  check.runs.find((r) => r.offset !== null)?.offset ?? 0,
-                  'force',
-                  units,
-                )} at zero speed in both directions, as a gas force included in them would: enter it under Gas force to take it off, or the fitted curve counts it as damping.`
-              : ''}
+            {offsetNote(check.runs, units)}
           </p>
         ) : problems.has('file') ? (
           <p className="status error" role="alert">

@@ -1,4 +1,4 @@
-import { setupChangeNumbersText } from '../../../core/setup-diff';
+import { setupChangeText } from '../../../core/setup-diff';
 import { useEffect, useState, type FormEvent } from 'react';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
@@ -97,7 +97,7 @@ export function DiffView(props: { a: RevisionPick; b: RevisionPick }) {
               <tr key={`${f.position ?? ''}-${f.field}`}>
                 <td>{f.label}</td>
                 <td>{f.position ?? '—'}</td>
-                {setupChangeNumbersText(f.before, f.after).map((t, i) => (
+                {setupChangeText(f).map((t, i) => (
                   <td key={i}>{t ?? '—'}</td>
                 ))}
                 <td>{f.unit}</td>
