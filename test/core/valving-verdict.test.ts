@@ -1,9 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  VALVING_HEADLINE_SENSE,
-  VALVING_SAME_RELATIVE,
-  valvingHeadlineVerdict,
-} from '../../core/valving-compare';
+import { VALVING_HEADLINE_SENSE, valvingHeadlineVerdict } from '../../core/valving-compare';
 import { VALVING_HEADLINE_KEYS } from '../../core/valving-rank';
 import { VALVING_PRESETS } from '../../core/valving-presets';
 
