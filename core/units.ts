@@ -1,5 +1,96 @@
-import { unit, type Unit } from 'mathjs';
+import {
+  createComplexClass,
+  createFractionClass,
+  createUnitClass,
+  type FactoryFunction,
+  type Unit,
+  type UnitCtor,
+} from 'mathjs';
 import { InputError } from './input-error';
+
+/** What of mathjs's Unit class is used here, as the class is (its declared type misses `parse`'s options and a valueless unit). */
+type UnitClass = UnitCtor & {
+  new (value: number | null, name: string): Unit;
+  parse(text: string, options: { allowNoUnits: boolean }): Unit;
+};
+
+declare module 'mathjs' {
+  // Factories mathjs exports (lib/esm/factoriesAny.js) without declaring them.
+  export const createUnitClass: FactoryFunction<unknown>;
+  export const createComplexClass: FactoryFunction<unknown>;
+  export const createFractionClass: FactoryFunction<unknown>;
+}
+
+/** A number, or a TypeError naming the operation: the units here hold plain numbers only. */
+function unitNumber(operation: string, x: unknown): number {
+  if (typeof x !== 'number') throw new TypeError(`units: ${operation} takes numbers, got ${typeof x}`);
+  return x;
+}
+
+/** Operations of Unit that reading and converting quantities never reach (formatting, splitting, equality of values). */
+function unitUnused(operation: string): () => never {
+  return () => {
+    throw new Error(`units: ${operation} of a mathjs Unit is not part of this program's units`);
+  };
+}
+
+/**
+ * mathjs's Unit class alone, built from its factory with plain-number arithmetic instead of the
+ * whole of mathjs (whose typed functions for every numeric type take a tenth of a second to
+ * create and half a megabyte to load). Its unit tables, parser and conversions are mathjs's
+ * own; with the default `number: 'number'` configuration every value it meets is a number,
+ * except the Fraction 5/9 of degF and degR, which `number` turns into one.
+ */
+const UnitOfMathjs = createUnitClass({
+  config: Object.freeze({
+    number: 'number',
+    predictable: false,
+    precision: 64,
+    relTol: 1e-12,
+    absTol: 1e-15,
+  }),
+  addScalar: (a: unknown, b: unknown) => unitNumber('addScalar', a) + unitNumber('addScalar', b),
+  subtractScalar: (a: unknown, b: unknown) =>
+    unitNumber('subtractScalar', a) - unitNumber('subtractScalar', b),
+  multiplyScalar: (a: unknown, b: unknown) =>
+    unitNumber('multiplyScalar', a) * unitNumber('multiplyScalar', b),
+  divideScalar: (a: unknown, b: unknown) => unitNumber('divideScalar', a) / unitNumber('divideScalar', b),
+  pow: (a: unknown, b: unknown) => {
+    const x = unitNumber('pow', a);
+    const y = unitNumber('pow', b);
+    // mathjs answers a Complex here; no unit of ours has a negative scale.
+    if (x < 0 && !Number.isInteger(y)) throw new TypeError('units: pow of a negative number to a fraction');
+    return Math.pow(x, y);
+  },
+  abs: (a: unknown) => Math.abs(unitNumber('abs', a)),
+  isNumeric: (x: unknown) =>
+    typeof x === 'number' ||
+    typeof x === 'bigint' ||
+    typeof x === 'boolean' ||
+    (typeof x === 'object' && x !== null && ('isFraction' in x || 'isBigNumber' in x)),
+  number: (x: unknown) =>
+    typeof x === 'object' && x !== null && 'isFraction' in x ? Number(x.valueOf()) : unitNumber('number', x),
+  fix: unitUnused('fix'),
+  round: unitUnused('round'),
+  equal: unitUnused('equal'),
+  format: unitUnused('format'),
+  Complex: createComplexClass({}),
+  Fraction: createFractionClass({}),
+  // Only reached under `number: 'BigNumber'`.
+  BigNumber: unitUnused('BigNumber'),
+}) as UnitClass;
+
+/** A quantity or a bare unit read from text, as mathjs's `unit(text)` reads it. */
+function unitRead(text: string): Unit {
+  return UnitOfMathjs.isValuelessUnit(text)
+    ? new UnitOfMathjs(null, text)
+    : UnitOfMathjs.parse(text, { allowNoUnits: true });
+}
+
+/** `value` in the unit `text`, as mathjs's `unit(value, text)`. */
+function unit(value: number, text: string): Unit {
+  return new UnitOfMathjs(value, text);
+}
 
 /**
  * The kinds of quantity the program reads and shows. Everything inside is SI;
@@ -144,7 +235,7 @@ const SI_REFERENCE = new Map<QuantityKind, Unit>();
 function siReference(kind: QuantityKind): Unit {
   let u = SI_REFERENCE.get(kind);
   if (!u) {
-    u = unit(KINDS[kind].si);
+    u = unitRead(KINDS[kind].si);
     SI_REFERENCE.set(kind, u);
   }
   return u;
@@ -211,7 +302,7 @@ export function quantityParse(value: unknown, kind: QuantityKind, field: string)
   }
   let u: Unit;
   try {
-    u = unit(text);
+    u = unitRead(text);
   } catch {
     throw new InputError(field, `could not read "${value}" as a quantity; ${expected}`);
   }

@@ -1,7 +1,7 @@
+import { readFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { build, stop } from 'esbuild';
 import {
   valvingEvaluatorOf,
   valvingJobSize,
@@ -15,6 +15,7 @@ import {
   valvingSweepMerge,
   type ValvingChunk,
 } from '../../core/valving-sweep';
+import { BUILT_DIR } from './built-output';
 
 export type ValvingSweepOptions = {
   /**
@@ -41,27 +42,33 @@ const WORKER_SOURCE = fileURLToPath(new URL('./valving-worker.ts', import.meta.u
 let workerCode: Promise<string> | null = null;
 
 /**
- * The worker as one script, bundled once a process with esbuild (tsx's own compiler). A
- * worker that loads the TypeScript modules one by one through tsx, mathjs's thousand files
- * among them, takes about a second of a core to start; the bundle, which keeps only the part
- * of mathjs the units use, starts in about a tenth of that — the difference between a cold
- * sweep that gains from a second core and one that does not.
+ * The worker as one script. The built program has it ready (dist/node/valving-worker.cjs, made
+ * with the rest); from the sources it is bundled once a process with esbuild (tsx's own
+ * compiler). A worker that loads the TypeScript modules one by one through tsx takes about a
+ * second of a core to start; the bundle starts in about a tenth of that — the difference
+ * between a cold sweep that gains from a second core and one that does not.
  */
 export function valvingWorkerCode(): Promise<string> {
-  workerCode ??= build({
-    entryPoints: [WORKER_SOURCE],
-    bundle: true,
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
-    write: false,
-    logLevel: 'silent',
-  }).then(async (r) => {
-    const text = (r.outputFiles[0] as { text: string }).text;
-    // esbuild's own process (some 90 MB) would idle beside a kept pool: the bundle is all it is needed for.
-    await stop();
-    return text;
-  });
+  workerCode ??= BUILT_DIR
+    ? readFile(new URL('valving-worker.cjs', BUILT_DIR), 'utf8')
+    : import('esbuild').then((esbuild) =>
+        esbuild
+          .build({
+            entryPoints: [WORKER_SOURCE],
+            bundle: true,
+            platform: 'node',
+            format: 'cjs',
+            target: 'node20',
+            write: false,
+            logLevel: 'silent',
+          })
+          .then(async (r) => {
+            const text = (r.outputFiles[0] as { text: string }).text;
+            // esbuild's own process (some 90 MB) would idle beside a kept pool: the bundle is all it is needed for.
+            await esbuild.stop();
+            return text;
+          }),
+      );
   // A failed build is not kept: the next pool tries again.
   workerCode.catch(() => (workerCode = null));
   return workerCode;

@@ -1,42 +1,71 @@
 import { InputError } from '../../core/input-error';
-import { analyzeCommand } from './commands/analyze';
-import { benchSimCommand } from './commands/bench-sim';
-import { benchSweepCommand } from './commands/bench-sweep';
-import { simulateCommand } from './commands/simulate';
-import { benchCommand } from './commands/bench';
-import { chooseCommand } from './commands/choose';
-import { compareCommand } from './commands/compare';
-import { dampingMapCommand } from './commands/damping-map';
-import { exportCommand, importCommand } from './commands/exchange';
-import { setupCommand } from './commands/setup';
-import { backupCommand, checkCommand, demoCommand } from './commands/store';
-import { vehicleCommand } from './commands/vehicle';
 import { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_OK, UsageError, type CliIo } from './cli-io';
 
-type Command = { summary: string; run: (args: string[], io: CliIo) => Promise<number> };
+type CommandRun = (args: string[], io: CliIo) => Promise<number>;
+/** `load` imports the command's module only when it runs: `--help` and each command start without the others. */
+type Command = { summary: string; load: () => Promise<CommandRun> };
 
 const COMMANDS: Record<string, Command> = {
-  analyze: { summary: 'ride figures of a corner file', run: analyzeCommand },
+  analyze: {
+    summary: 'ride figures of a corner file',
+    load: async () => (await import('./commands/analyze')).analyzeCommand,
+  },
   simulate: {
     summary: 'one road event on the nonlinear quarter car; CSV time history',
-    run: simulateCommand,
+    load: async () => (await import('./commands/simulate')).simulateCommand,
   },
-  'bench-sim': { summary: 'benchmark of the bump simulation (simulations per second)', run: benchSimCommand },
+  'bench-sim': {
+    summary: 'benchmark of the bump simulation (simulations per second)',
+    load: async () => (await import('./commands/bench-sim')).benchSimCommand,
+  },
   'bench-sweep': {
     summary: 'benchmark of the valving sweep (click combinations per second)',
-    run: benchSweepCommand,
+    load: async () => (await import('./commands/bench-sweep')).benchSweepCommand,
   },
-  vehicle: { summary: 'add, list, show or delete vehicles', run: vehicleCommand },
-  setup: { summary: 'save, show, history and diff of setup revisions', run: setupCommand },
-  bench: { summary: 'import, list and show damper bench runs', run: benchCommand },
-  'damping-map': { summary: "a damper's ζ and modes per click on one corner", run: dampingMapCommand },
-  choose: { summary: 'rank every click combination of a damper against targets', run: chooseCommand },
-  compare: { summary: 'two revisions side by side: the track-day sheet', run: compareCommand },
-  export: { summary: 'write a vehicle with its revisions and bench data to a bundle', run: exportCommand },
-  import: { summary: 'read a bundle into the database', run: importCommand },
-  backup: { summary: 'copy the whole database, checked', run: backupCommand },
-  check: { summary: 'check the database for damage', run: checkCommand },
-  demo: { summary: 'load the invented Millbrook demo shop', run: demoCommand },
+  vehicle: {
+    summary: 'add, list, show or delete vehicles',
+    load: async () => (await import('./commands/vehicle')).vehicleCommand,
+  },
+  setup: {
+    summary: 'save, show, history and diff of setup revisions',
+    load: async () => (await import('./commands/setup')).setupCommand,
+  },
+  bench: {
+    summary: 'import, list and show damper bench runs',
+    load: async () => (await import('./commands/bench')).benchCommand,
+  },
+  'damping-map': {
+    summary: "a damper's ζ and modes per click on one corner",
+    load: async () => (await import('./commands/damping-map')).dampingMapCommand,
+  },
+  choose: {
+    summary: 'rank every click combination of a damper against targets',
+    load: async () => (await import('./commands/choose')).chooseCommand,
+  },
+  compare: {
+    summary: 'two revisions side by side: the track-day sheet',
+    load: async () => (await import('./commands/compare')).compareCommand,
+  },
+  export: {
+    summary: 'write a vehicle with its revisions and bench data to a bundle',
+    load: async () => (await import('./commands/exchange')).exportCommand,
+  },
+  import: {
+    summary: 'read a bundle into the database',
+    load: async () => (await import('./commands/exchange')).importCommand,
+  },
+  backup: {
+    summary: 'copy the whole database, checked',
+    load: async () => (await import('./commands/store')).backupCommand,
+  },
+  check: {
+    summary: 'check the database for damage',
+    load: async () => (await import('./commands/store')).checkCommand,
+  },
+  demo: {
+    summary: 'load the invented Millbrook demo shop',
+    load: async () => (await import('./commands/store')).demoCommand,
+  },
 };
 
 /**
@@ -92,7 +121,9 @@ export async function cliMain(argv: string[], io: CliIo): Promise<number> {
     return EXIT_BAD_INPUT;
   }
   try {
-    return await command.run(rest, io);
+    return await (
+      await command.load()
+    )(rest, io);
   } catch (e) {
     const { line, code } = errorLine(e);
     io.stderr(`rideledger ${name}: ${line.replace(/\s*\n\s*/g, code === EXIT_FAILURE ? '\n' : ' ')}\n`);

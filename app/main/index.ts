@@ -6,7 +6,7 @@ import { join, resolve } from 'node:path';
 import { backendSpawn } from './backend-process';
 import { desktopStart } from './desktop';
 
-// The bundle sits in dist/desktop/; the project (server sources, built renderer) two folders up.
+// The bundle sits in dist/desktop/; the project (built backend and renderer) two folders up.
 const root = resolve(__dirname, '..', '..');
 
 void desktopStart({
@@ -18,7 +18,8 @@ void desktopStart({
     backendSpawn({
       // The Node that installed the project built better-sqlite3 for its own ABI: run the backend there.
       nodePath: process.env.RIDELEDGER_NODE ?? 'node',
-      args: ['--import', 'tsx', join(root, 'app', 'server', 'main.ts'), '--ready-line'],
+      // The built backend (`npm run build` makes it with the window's bundle), not the sources.
+      args: [join(root, 'dist', 'node', 'server.js'), '--ready-line'],
       cwd: root,
       onLog: (line) => console.log(`[backend] ${line}`),
     }),

@@ -7,6 +7,7 @@ import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { storeClose, storeOpen } from '../../db/store';
 import { storePathResolve } from '../../db/store-path';
+import { BUILT_DIR } from '../api/built-output';
 import { apiCall } from '../api/call';
 import { READY_PREFIX } from '../main/backend-process';
 import { apiFailureOf } from './api-failure';
@@ -47,7 +48,8 @@ async function serverMain(argv: string[]): Promise<void> {
   const staticDir = fileURLToPath(new URL('../../dist/renderer/', import.meta.url));
   if (!existsSync(staticDir))
     console.error('rideledger serve: the renderer is not built; run `npm run build:renderer`');
-  const jobs = new JobRunner(path);
+  // Run from the build, a job's thread runs the built worker too, not the sources through tsx.
+  const jobs = new JobRunner(path, BUILT_DIR && { workerUrl: new URL('job-worker.js', BUILT_DIR) });
   const server = await serverStart({
     staticDir,
     port,

@@ -1,0 +1,47 @@
+import { existsSync, statSync, utimesSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { nodeBuildStale } from '../../app/node-build.js';
+import { PROJECT_ROOT, runBin, runCli } from './run-cli';
+
+const DEMO = 'assets/demo/club-coupe-front-left.json';
+
+describe('the built command (dist/node)', () => {
+  it('prints the same analyze --json as the sources run in-process, on the demo corner', async () => {
+    const built = runBin(['analyze', DEMO, '--json']);
+    const sources = await runCli(['analyze', DEMO, '--json']);
+    expect(built.code).toBe(0);
+    expect(sources.code).toBe(0);
+    // The process ran the build, and the build is of these sources.
+    expect(existsSync(`${PROJECT_ROOT}dist/node/cli.js`)).toBe(true);
+    expect(nodeBuildStale()).toBeNull();
+    expect(JSON.parse(built.stdout)).toEqual(JSON.parse(sources.stdout));
+    // Same code, same arithmetic: the very same text, to the last digit.
+    expect(built.stdout).toBe(sources.stdout);
+    expect(built.stderr).toBe('');
+  });
+
+  it('prints the same readable report in US units as the sources', async () => {
+    const built = runBin(['analyze', DEMO, '--units', 'us']);
+    const sources = await runCli(['analyze', DEMO, '--units', 'us']);
+    expect(built.code).toBe(0);
+    expect(built.stdout).toBe(sources.stdout);
+  });
+
+  it('is rebuilt before it runs when a source changed since the build', () => {
+    runBin(['--help']);
+    expect(nodeBuildStale()).toBeNull();
+    const source = `${PROJECT_ROOT}core/units.ts`;
+    const before = statSync(source);
+    try {
+      // As an editor's save would: a newer modification time.
+      utimesSync(source, before.atime, new Date(before.mtimeMs + 2000));
+      expect(nodeBuildStale()).toBe('core/units.ts changed since the last build');
+      const r = runBin(['analyze', DEMO, '--json']);
+      expect(r.code).toBe(0);
+      expect(r.stderr).toBe('');
+      expect(nodeBuildStale()).toBeNull();
+    } finally {
+      utimesSync(source, before.atime, before.mtime);
+    }
+  }, 60_000);
+});
