@@ -34,12 +34,53 @@ function unitUnused(operation: string): () => never {
   };
 }
 
+type FractionValue = {
+  isFraction: true;
+  add(other: FractionValue): FractionValue;
+  sub(other: FractionValue): FractionValue;
+  mul(other: FractionValue): FractionValue;
+  div(other: FractionValue): FractionValue;
+  valueOf(): number;
+};
+
+/** mathjs's Fraction (fraction.js): the exact 5/9 of degF and degR. */
+const Fraction = createFractionClass({}) as new (x: number) => FractionValue;
+
+const isFraction = (x: unknown): x is FractionValue =>
+  typeof x === 'object' && x !== null && 'isFraction' in x && x.isFraction === true;
+
+/** A number as an exact Fraction, as mathjs converts one it must combine with a Fraction. */
+function fractionOf(x: unknown, operation: string): FractionValue {
+  if (isFraction(x)) return x;
+  const n = unitNumber(operation, x);
+  const f = new Fraction(n);
+  if (f.valueOf() !== n) throw new TypeError(`units: ${operation}: ${n} is not exact as a Fraction`);
+  return f;
+}
+
 /**
- * mathjs's Unit class alone, built from its factory with plain-number arithmetic instead of the
+ * One of Unit's scalar operations as mathjs does it on numbers and Fractions: two numbers in
+ * floating point; with a Fraction (degF, degR: the offsets of a temperature conversion) exactly,
+ * the number made a Fraction first.
+ */
+function unitScalar(
+  operation: string,
+  onNumbers: (a: number, b: number) => number,
+  onFractions: (a: FractionValue, b: FractionValue) => FractionValue,
+): (a: unknown, b: unknown) => number | FractionValue {
+  return (a, b) =>
+    isFraction(a) || isFraction(b)
+      ? onFractions(fractionOf(a, operation), fractionOf(b, operation))
+      : onNumbers(unitNumber(operation, a), unitNumber(operation, b));
+}
+
+/**
+ * mathjs's Unit class alone, built from its factory with the arithmetic it needs instead of the
  * whole of mathjs (whose typed functions for every numeric type take a tenth of a second to
  * create and half a megabyte to load). Its unit tables, parser and conversions are mathjs's
- * own; with the default `number: 'number'` configuration every value it meets is a number,
- * except the Fraction 5/9 of degF and degR, which `number` turns into one.
+ * own; with the default `number: 'number'` configuration every value it meets is a number or
+ * the Fraction 5/9 of degF and degR, and test/core/units-mathjs.test.ts checks that every
+ * conversion gives the very number the whole of mathjs gives.
  */
 const UnitOfMathjs = createUnitClass({
   config: Object.freeze({
@@ -49,12 +90,26 @@ const UnitOfMathjs = createUnitClass({
     relTol: 1e-12,
     absTol: 1e-15,
   }),
-  addScalar: (a: unknown, b: unknown) => unitNumber('addScalar', a) + unitNumber('addScalar', b),
-  subtractScalar: (a: unknown, b: unknown) =>
-    unitNumber('subtractScalar', a) - unitNumber('subtractScalar', b),
-  multiplyScalar: (a: unknown, b: unknown) =>
-    unitNumber('multiplyScalar', a) * unitNumber('multiplyScalar', b),
-  divideScalar: (a: unknown, b: unknown) => unitNumber('divideScalar', a) / unitNumber('divideScalar', b),
+  addScalar: unitScalar(
+    'addScalar',
+    (a, b) => a + b,
+    (a, b) => a.add(b),
+  ),
+  subtractScalar: unitScalar(
+    'subtractScalar',
+    (a, b) => a - b,
+    (a, b) => a.sub(b),
+  ),
+  multiplyScalar: unitScalar(
+    'multiplyScalar',
+    (a, b) => a * b,
+    (a, b) => a.mul(b),
+  ),
+  divideScalar: unitScalar(
+    'divideScalar',
+    (a, b) => a / b,
+    (a, b) => a.div(b),
+  ),
   pow: (a: unknown, b: unknown) => {
     const x = unitNumber('pow', a);
     const y = unitNumber('pow', b);
@@ -67,15 +122,15 @@ const UnitOfMathjs = createUnitClass({
     typeof x === 'number' ||
     typeof x === 'bigint' ||
     typeof x === 'boolean' ||
-    (typeof x === 'object' && x !== null && ('isFraction' in x || 'isBigNumber' in x)),
-  number: (x: unknown) =>
-    typeof x === 'object' && x !== null && 'isFraction' in x ? Number(x.valueOf()) : unitNumber('number', x),
+    isFraction(x) ||
+    (typeof x === 'object' && x !== null && 'isBigNumber' in x),
+  number: (x: unknown) => (isFraction(x) ? x.valueOf() : unitNumber('number', x)),
   fix: unitUnused('fix'),
   round: unitUnused('round'),
   equal: unitUnused('equal'),
   format: unitUnused('format'),
   Complex: createComplexClass({}),
-  Fraction: createFractionClass({}),
+  Fraction,
   // Only reached under `number: 'BigNumber'`.
   BigNumber: unitUnused('BigNumber'),
 }) as UnitClass;
