@@ -82,61 +82,68 @@ function unitScalar(
  * the Fraction 5/9 of degF and degR, and test/core/units-mathjs.test.ts checks that every
  * conversion gives the very number the whole of mathjs gives.
  */
-const UnitOfMathjs = createUnitClass({
-  config: Object.freeze({
-    number: 'number',
-    predictable: false,
-    precision: 64,
-    relTol: 1e-12,
-    absTol: 1e-15,
-  }),
-  addScalar: unitScalar(
-    'addScalar',
-    (a, b) => a + b,
-    (a, b) => a.add(b),
-  ),
-  subtractScalar: unitScalar(
-    'subtractScalar',
-    (a, b) => a - b,
-    (a, b) => a.sub(b),
-  ),
-  multiplyScalar: unitScalar(
-    'multiplyScalar',
-    (a, b) => a * b,
-    (a, b) => a.mul(b),
-  ),
-  divideScalar: unitScalar(
-    'divideScalar',
-    (a, b) => a / b,
-    (a, b) => a.div(b),
-  ),
-  pow: (a: unknown, b: unknown) => {
-    const x = unitNumber('pow', a);
-    const y = unitNumber('pow', b);
-    // mathjs answers a Complex here; no unit of ours has a negative scale.
-    if (x < 0 && !Number.isInteger(y)) throw new TypeError('units: pow of a negative number to a fraction');
-    return Math.pow(x, y);
-  },
-  abs: (a: unknown) => Math.abs(unitNumber('abs', a)),
-  isNumeric: (x: unknown) =>
-    typeof x === 'number' ||
-    typeof x === 'bigint' ||
-    typeof x === 'boolean' ||
-    isFraction(x) ||
-    (typeof x === 'object' && x !== null && 'isBigNumber' in x),
-  number: (x: unknown) => (isFraction(x) ? x.valueOf() : unitNumber('number', x)),
-  fix: unitUnused('fix'),
-  round: unitUnused('round'),
-  equal: unitUnused('equal'),
-  format: unitUnused('format'),
-  Complex: createComplexClass({}),
-  Fraction,
-  // Only reached under `number: 'BigNumber'`.
-  BigNumber: unitUnused('BigNumber'),
-}) as UnitClass;
+function unitClassCreate(): UnitClass {
+  return createUnitClass({
+    config: Object.freeze({
+      number: 'number',
+      predictable: false,
+      precision: 64,
+      relTol: 1e-12,
+      absTol: 1e-15,
+    }),
+    addScalar: unitScalar(
+      'addScalar',
+      (a, b) => a + b,
+      (a, b) => a.add(b),
+    ),
+    subtractScalar: unitScalar(
+      'subtractScalar',
+      (a, b) => a - b,
+      (a, b) => a.sub(b),
+    ),
+    multiplyScalar: unitScalar(
+      'multiplyScalar',
+      (a, b) => a * b,
+      (a, b) => a.mul(b),
+    ),
+    divideScalar: unitScalar(
+      'divideScalar',
+      (a, b) => a / b,
+      (a, b) => a.div(b),
+    ),
+    pow: (a: unknown, b: unknown) => {
+      const x = unitNumber('pow', a);
+      const y = unitNumber('pow', b);
+      // mathjs answers a Complex here; no unit of ours has a negative scale.
+      if (x < 0 && !Number.isInteger(y)) throw new TypeError('units: pow of a negative number to a fraction');
+      return Math.pow(x, y);
+    },
+    abs: (a: unknown) => Math.abs(unitNumber('abs', a)),
+    isNumeric: (x: unknown) =>
+      typeof x === 'number' ||
+      typeof x === 'bigint' ||
+      typeof x === 'boolean' ||
+      isFraction(x) ||
+      (typeof x === 'object' && x !== null && 'isBigNumber' in x),
+    number: (x: unknown) => (isFraction(x) ? x.valueOf() : unitNumber('number', x)),
+    fix: unitUnused('fix'),
+    round: unitUnused('round'),
+    equal: unitUnused('equal'),
+    format: unitUnused('format'),
+    Complex: createComplexClass({}),
+    Fraction,
+    // Only reached under `number: 'BigNumber'`.
+    BigNumber: unitUnused('BigNumber'),
+  }) as UnitClass;
+}
+
+let unitClass: UnitClass | undefined;
+/** The Unit class, made the first time a unit is read (its tables take milliseconds to build). */
+const unitClassOf = (): UnitClass => (unitClass ??= unitClassCreate());
 
 /** A quantity or a bare unit read from text, as mathjs's `unit(text)` reads it. */
 function unitRead(text: string): Unit {
+  const UnitOfMathjs = unitClassOf();
   return UnitOfMathjs.isValuelessUnit(text)
     ? new UnitOfMathjs(null, text)
     : UnitOfMathjs.parse(text, { allowNoUnits: true });
@@ -144,7 +151,7 @@ function unitRead(text: string): Unit {
 
 /** `value` in the unit `text`, as mathjs's `unit(value, text)`. */
 function unit(value: number, text: string): Unit {
-  return new UnitOfMathjs(value, text);
+  return new (unitClassOf())(value, text);
 }
 
 /**
