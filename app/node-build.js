@@ -106,6 +106,7 @@ function fileWriteAtomic(path, contents) {
  */
 export async function nodeBuild({ clean = false } = {}) {
   const { build } = await import('esbuild');
+  const started = Date.now();
   const common = {
     absWorkingDir: ROOT,
     bundle: true,
@@ -148,7 +149,12 @@ export async function nodeBuild({ clean = false } = {}) {
     for (const input of Object.keys(r.metafile.inputs))
       if (!input.split('/').includes('node_modules') && !input.includes(':')) sources.add(input);
   const inputs = {};
-  for (const file of [...sources].sort()) inputs[file] = fileMark(join(ROOT, file));
+  for (const file of [...sources].sort()) {
+    // A source saved while the build read it may be in the build as it was before: left
+    // unmarked, so that the next start builds again.
+    const changedMeanwhile = (statSync(join(ROOT, file), { throwIfNoEntry: false })?.mtimeMs ?? 0) >= started;
+    inputs[file] = changedMeanwhile ? 'changed during the build' : fileMark(join(ROOT, file));
+  }
   // What each output holds, for esbuild's bundle analyzer when a start-up grows.
   fileWriteAtomic(join(OUT_DIR, 'meta.json'), JSON.stringify(program.metafile));
   fileWriteAtomic(RECORD, `${JSON.stringify({ inputs }, null, 1)}\n`);
