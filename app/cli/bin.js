@@ -7,6 +7,8 @@ import { nodeBuildStale } from '../node-build.js';
 const stale = nodeBuildStale();
 if (stale !== null) {
   const { nodeBuild } = await import('../node-build.js');
+  // Said where a person watches; a script reading stderr sees only the command's own lines.
+  if (process.stderr.isTTY) process.stderr.write(`rideledger: ${stale}; building it again\n`);
   try {
     await nodeBuild();
   } catch (e) {
