@@ -100,6 +100,20 @@ function fileWriteAtomic(path, contents) {
   renameSync(temp, path);
 }
 
+/** A command started before a rebuild may still load the chunks of its own build, for a while. */
+const CHUNK_KEEP_MS = 10 * 60 * 1000;
+
+/** Removes chunks of earlier builds that no command started in the last minutes can still load. */
+function chunksOldRemove(current) {
+  const now = Date.now();
+  for (const name of readdirSync(OUT_DIR)) {
+    const path = join(OUT_DIR, name);
+    if (!/^chunk-.*\.js$/.test(name) || current.has(path)) continue;
+    const s = statSync(path, { throwIfNoEntry: false });
+    if (s && now - s.mtimeMs > CHUNK_KEEP_MS) rmSync(path, { force: true });
+  }
+}
+
 /**
  * Builds dist/node from the sources and records what it read. `clean` removes files of an
  * earlier build first (not done when a command rebuilds on demand: another one may be running).
@@ -143,7 +157,9 @@ export async function nodeBuild({ clean = false } = {}) {
     format: 'cjs',
   });
   if (clean) rmSync(OUT_DIR, { recursive: true, force: true });
-  for (const f of [...program.outputFiles, ...worker.outputFiles]) fileWriteAtomic(f.path, f.contents);
+  const outputs = [...program.outputFiles, ...worker.outputFiles];
+  for (const f of outputs) fileWriteAtomic(f.path, f.contents);
+  chunksOldRemove(new Set(outputs.map((f) => f.path)));
   const sources = new Set(BUILD_FILES);
   for (const r of [program, worker])
     for (const input of Object.keys(r.metafile.inputs))
