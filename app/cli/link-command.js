@@ -1,6 +1,6 @@
-// Run by `npm install` / `npm ci` (the "prepare" script, after app/node-build.js): links the `rideledger` command into
-// node_modules/.bin, as npm does for a dependency's commands but not for the project's own,
-// so that `npx rideledger` and tools that look in node_modules/.bin find it.
+// Run by `npm install` / `npm ci` (the "prepare" script, after app/node-build.js): links the
+// `rideledger` command into node_modules/.bin, as npm does for a dependency's commands but not
+// for the project's own, so that `npx rideledger` and tools that look in node_modules/.bin find it.
 import { existsSync, mkdirSync, readlinkSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { dirname, join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
