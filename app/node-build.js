@@ -38,7 +38,7 @@ const RENDERER_STAMP = join(ROOT, 'dist', 'renderer', 'index.html');
 function fileMark(path) {
   try {
     const s = statSync(path);
-    return `${s.size}:${Math.round(s.mtimeMs)}`;
+    return `${s.size}:${Math.floor(s.mtimeMs)}`;
   } catch {
     return null;
   }
