@@ -1,6 +1,6 @@
 import { InputError } from '../../core/input-error';
 import type { ApiFailure } from './http-server';
-import type { JobError } from './jobs';
+import type { JobError } from './job-error';
 import { PolicyRefusal } from './policy';
 
 /** What the page sees of an error: bad input names its field; a refusal says why; anything else is internal. */

@@ -47,6 +47,14 @@ async function serverMain(argv: string[]): Promise<void> {
   const staticDir = fileURLToPath(new URL('../../dist/renderer/', import.meta.url));
   if (!existsSync(staticDir))
     console.error('rideledger serve: the renderer is not built; run `npm run build:renderer`');
+  // The server's own boundary answers every request; anything that still escapes (a stray
+  // callback's error) is logged and the backend keeps serving.
+  process.on('unhandledRejection', (e: unknown) =>
+    console.error(`rideledger serve: unexpected error, still serving: ${(e as Error)?.stack ?? String(e)}`),
+  );
+  process.on('uncaughtException', (e: Error) =>
+    console.error(`rideledger serve: unexpected error, still serving: ${e.stack ?? String(e)}`),
+  );
   const jobs = new JobRunner(path);
   const server = await serverStart({
     staticDir,
