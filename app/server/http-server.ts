@@ -149,6 +149,14 @@ function readBody(req: IncomingMessage, limit: number): Promise<string> {
   });
 }
 
+function hasControlCharacter(text: string): boolean {
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c < 0x20 || c === 0x7f) return true;
+  }
+  return false;
+}
+
 function serveStatic(root: string, pathname: string, res: ServerResponse): void {
   let decoded: string;
   try {
@@ -158,7 +166,7 @@ function serveStatic(root: string, pathname: string, res: ServerResponse): void 
     return;
   }
   // A NUL (or any control character) names no file of ours; the file system would refuse it.
-  if (/[\u0000-\u001f\u007f]/.test(decoded)) {
+  if (hasControlCharacter(decoded)) {
     sendJson(res, 400, { error: { message: 'bad path' } });
     return;
   }
