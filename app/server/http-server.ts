@@ -9,10 +9,16 @@ import { electronConfig } from '../../electron.config';
 export type ApiDispatch = (name: string, input: unknown) => Promise<unknown>;
 
 /** How the dispatcher reports a failure the client should see (bad input, unknown handler). */
-export type ApiFailure = { status: 400 | 404 | 409 | 413; field?: string; message: string };
+export type ApiFailure = { status: 400 | 404 | 409 | 413 | 503; field?: string; message: string };
 
 export type ServerOptions = {
   dispatch: ApiDispatch;
+  /**
+   * Takes a call as its body's text, unread, where it is run elsewhere (a thread that reads the
+   * JSON itself): this thread then never parses nor copies a large input. Undefined leaves the
+   * call to `dispatch`.
+   */
+  dispatchText?: (name: string, body: string) => Promise<unknown> | undefined;
   /** Turns an error thrown by `dispatch` into what the client sees; undefined means "internal error". */
   describeError: (error: unknown) => ApiFailure | undefined;
   /** Folder of the built renderer; without it only the API is served. */
@@ -44,6 +50,9 @@ export type RunningServer = {
 
 /** Header that carries the token on every API request. */
 export const TOKEN_HEADER = 'x-rideledger-token';
+
+/** What a request whose body is not JSON is told. */
+export const BAD_JSON = 'the request body is not valid JSON';
 
 /** Prefix of every API route; every request under it needs the token. */
 export const API_PREFIX = '/api/';
@@ -327,19 +336,6 @@ export async function serverStart(options: ServerOptions): Promise<RunningServer
     serveStatic(options.staticDir, url.pathname, res);
   }
 
-  async function readJsonInput(
-    req: IncomingMessage,
-    res: ServerResponse,
-  ): Promise<{ ok: true; input: unknown } | { ok: false }> {
-    const body = await readBody(req, maxBody);
-    try {
-      return { ok: true, input: body === '' ? {} : JSON.parse(body) };
-    } catch {
-      sendJson(res, 400, { error: { message: 'the request body is not valid JSON' } });
-      return { ok: false };
-    }
-  }
-
   function sendFailure(res: ServerResponse, e: unknown, what: string): void {
     const failure = options.describeError(e);
     if (failure) {
@@ -372,15 +368,26 @@ export async function serverStart(options: ServerOptions): Promise<RunningServer
       sendJson(res, 405, { error: { message: 'API calls are POST' } });
       return;
     }
-    const body = await readJsonInput(req, res);
-    if (!body.ok) return;
     const name = ((call ?? jobStart) as RegExpExecArray)[1] as string;
+    const text = await readBody(req, maxBody);
     try {
+      const elsewhere = call ? options.dispatchText?.(name, text) : undefined;
+      if (elsewhere) {
+        sendJson(res, 200, { value: await elsewhere });
+        return;
+      }
+      let input: unknown;
+      try {
+        input = text === '' ? {} : JSON.parse(text);
+      } catch {
+        sendJson(res, 400, { error: { message: BAD_JSON } });
+        return;
+      }
       if (jobStart) {
         if (!options.jobs) throw new Error('jobs are not available');
-        sendJson(res, 200, { value: { job: options.jobs.start(name, body.input) } });
+        sendJson(res, 200, { value: { job: options.jobs.start(name, input) } });
       } else {
-        sendJson(res, 200, { value: await options.dispatch(name, body.input) });
+        sendJson(res, 200, { value: await options.dispatch(name, input) });
       }
     } catch (e) {
       sendFailure(res, e, name);

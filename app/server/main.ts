@@ -10,6 +10,7 @@ import { storePathResolve } from '../../db/store-path';
 import { apiCall } from '../api/call';
 import { READY_PREFIX } from '../main/backend-process';
 import { apiFailureOf } from './api-failure';
+import { CallPool, OFF_THREAD } from './call-pool';
 import { serverStart } from './http-server';
 import { JobRunner } from './jobs';
 import { handlerInputCheck, handlerNameCheck } from './policy';
@@ -56,6 +57,8 @@ async function serverMain(argv: string[]): Promise<void> {
     console.error(`rideledger serve: unexpected error, still serving: ${e.stack ?? String(e)}`),
   );
   const jobs = new JobRunner(path);
+  // Calls whose cost grows with their input run on kept threads, never on the server's.
+  const pool = new CallPool(path);
   const server = await serverStart({
     staticDir,
     port,
@@ -64,6 +67,11 @@ async function serverMain(argv: string[]): Promise<void> {
       handlerInputCheck(handler, input);
       // A sweep asked for outright runs on the jobs' kept pool too, off this thread.
       return apiCall(handler, input, { store, valvingPool: jobs.valvingPool });
+    },
+    // Calls whose cost grows with their input go to the pool as text, read and run there.
+    dispatchText: (name, body) => {
+      const handler = handlerNameCheck(name);
+      return OFF_THREAD.has(handler) ? pool.run(handler, body) : undefined;
     },
     describeError: apiFailureOf,
     jobs: {
@@ -88,7 +96,7 @@ async function serverMain(argv: string[]): Promise<void> {
     );
   }
   const stop = async () => {
-    await jobs.closeAll();
+    await Promise.all([jobs.closeAll(), pool.close()]);
     await server.close();
     storeClose(store);
     process.exit(0);
