@@ -21,7 +21,9 @@ export const CALL_QUEUE_MAX = 64;
 
 /** A call as the thread gets it: the request body's text, read there (see dispatchText). */
 export type CallRequest = { id: number; name: HandlerName; body: string };
+/** What a thread says: that it is ready (once, at start), or the answer to a call. */
 export type CallReply =
+  | { ready: true }
   | { id: number; ok: true; value: unknown }
   | { id: number; ok: false; failure?: ApiFailure; message: string; stack?: string };
 
@@ -33,7 +35,8 @@ type Pending = {
   fail: (e: unknown) => void;
 };
 
-type Slot = { worker: Worker; busy: Pending | null };
+/** `ready`: the thread has loaded its code and opened its connection. */
+type Slot = { worker: Worker; busy: Pending | null; ready: boolean };
 
 export type CallPoolOptions = {
   /** Threads kept (default 2: one heavy call leaves one free). */
@@ -53,6 +56,10 @@ export class CallPool {
   private readonly workerUrl: URL;
   private nextId = 1;
   private closed = false;
+  /** Threads in a row that died before they were ready. */
+  private startFailures = 0;
+  /** Why the pool gave up starting threads; undefined while it works. */
+  private broken: string | undefined;
 
   constructor(
     private readonly storePath: string,
@@ -65,9 +72,14 @@ export class CallPool {
 
   private slotStart(): Slot {
     const worker = new Worker(this.workerUrl, { workerData: { storePath: this.storePath } });
-    const slot: Slot = { worker, busy: null };
+    const slot: Slot = { worker, busy: null, ready: false };
     worker.unref();
     worker.on('message', (reply: CallReply) => {
+      if ('ready' in reply) {
+        slot.ready = true;
+        this.startFailures = 0;
+        return;
+      }
       const call = slot.busy;
       if (!call || call.id !== reply.id) return;
       slot.busy = null;
@@ -83,6 +95,14 @@ export class CallPool {
       slot.busy = null;
       call?.fail(new Error(`the thread running ${call.name} stopped: ${why}`));
       if (this.closed) return;
+      // A thread that cannot even start is not started again and again: after three in a row
+      // the pool gives up, and the server runs these calls on its own thread.
+      if (!slot.ready && ++this.startFailures >= 3) {
+        this.broken = `the call threads could not start: ${why}`;
+        this.slots.splice(index, 1);
+        for (const waiting of this.queue.splice(0)) waiting.fail(new Error(this.broken));
+        return;
+      }
       this.slots[index] = this.slotStart();
       this.pump();
     };
@@ -98,6 +118,7 @@ export class CallPool {
    */
   run(name: HandlerName, body: string): Promise<unknown> {
     if (this.closed) return Promise.reject(new Error('the call pool is closed'));
+    if (this.broken !== undefined) return Promise.reject(new Error(this.broken));
     if (this.queue.length >= CALL_QUEUE_MAX)
       return Promise.reject(new ServerBusy(`${CALL_QUEUE_MAX} calls are already waiting; try again shortly`));
     return new Promise((done, fail) => {
@@ -114,6 +135,11 @@ export class CallPool {
       slot.busy = call;
       slot.worker.postMessage({ id: call.id, name: call.name, body: call.body } satisfies CallRequest);
     }
+  }
+
+  /** Whether calls can run here; false once threads have failed to start (see `broken`). */
+  get available(): boolean {
+    return !this.closed && this.broken === undefined;
   }
 
   /** Stops every thread; calls still waiting are refused. */

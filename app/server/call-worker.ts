@@ -11,6 +11,7 @@ import { handlerInputCheck } from './policy';
 const { storePath } = workerData as { storePath: string };
 const store = storeOpen(storePath);
 const post = (reply: CallReply) => parentPort?.postMessage(reply);
+post({ ready: true });
 
 parentPort?.on('message', (m: CallRequest) => {
   void (async () => {

@@ -71,7 +71,8 @@ async function serverMain(argv: string[]): Promise<void> {
     // Calls whose cost grows with their input go to the pool as text, read and run there.
     dispatchText: (name, body) => {
       const handler = handlerNameCheck(name);
-      return OFF_THREAD.has(handler) ? pool.run(handler, body) : undefined;
+      // Where its threads could not start, the call runs here rather than not at all.
+      return OFF_THREAD.has(handler) && pool.available ? pool.run(handler, body) : undefined;
     },
     describeError: apiFailureOf,
     jobs: {

@@ -54,6 +54,21 @@ describe('the call pool: calls read and run on kept threads', () => {
     expect(map.vehicle.name).toBe(vehicle);
   }, 60_000);
 
+  it('writes on its own connection what the server’s connection then reads', async () => {
+    const store = storeOpen(dbPath);
+    try {
+      const { bundle } = await apiCall('storeExport', { vehicle }, { store });
+      const imported = (await pool.run('storeImport', JSON.stringify({ bundle, asName: 'Pool copy' }))) as {
+        vehicle: string;
+      };
+      expect(imported.vehicle).toBe('Pool copy');
+      const names = (await apiCall('vehicleList', {}, { store })).vehicles.map((v) => v.name);
+      expect(names).toContain('Pool copy');
+    } finally {
+      storeClose(store);
+    }
+  }, 60_000);
+
   it('refuses bad input with the field named, bad JSON and a path from the page, 400', async () => {
     expect(await failureOf(pool.run('analyzeCorner', JSON.stringify({ file: { corner: 3 } })))).toMatchObject(
       {
@@ -99,6 +114,24 @@ describe('the call pool: threads', () => {
       expect(await dying.run('analyzeCorner' as HandlerName, 'b')).toMatchObject({ echoed: 'b' });
     } finally {
       await dying.close();
+    }
+  });
+
+  it('gives up on threads that cannot start, after three, and says so', async () => {
+    const failing = new CallPool(dbPath, {
+      threads: 1,
+      workerUrl: new URL('./failing-call-worker.js', import.meta.url),
+    });
+    try {
+      const waiting = failureOf(failing.run('analyzeCorner' as HandlerName, 'a'));
+      expect((await waiting).message).toMatch(/stopped|could not start/);
+      for (let i = 0; i < 200 && failing.available; i++) await new Promise((r) => setTimeout(r, 50));
+      expect(failing.available).toBe(false);
+      expect((await failureOf(failing.run('analyzeCorner' as HandlerName, 'b'))).message).toContain(
+        'this thread cannot start',
+      );
+    } finally {
+      await failing.close();
     }
   });
 
