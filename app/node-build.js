@@ -1,6 +1,6 @@
 // The program Node runs, built with esbuild from the TypeScript sources into dist/node/: the
 // `rideledger` command (cli.js), the backend of `npm run serve` and of the desktop window
-// (server.js), the thread of a long job (job-worker.js) and the valving sweep's worker
+// (server.js), the thread of a long job (job-worker.js), the threads of heavy calls (call-worker.js) and the valving sweep's worker
 // (valving-worker.cjs). `npm ci` builds it (the "prepare" script); `node app/node-build.js`
 // builds it again, `--if-stale` only when a source changed since, `--renderer` also the page
 // (dist/renderer/) when its sources changed.
@@ -139,6 +139,7 @@ export async function nodeBuild({ clean = false } = {}) {
       cli: 'app/cli/main.ts',
       server: 'app/server/main.ts',
       'job-worker': 'app/server/job-worker.ts',
+      'call-worker': 'app/server/call-worker.ts',
     },
     outdir: OUT_DIR,
     format: 'esm',

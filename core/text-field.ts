@@ -16,6 +16,24 @@ function hasControlCharacter(text: string): boolean {
   return false;
 }
 
+/**
+ * Characters (Unicode code points) of a text, counted without copying it; counting stops once
+ * past `stopAbove`, so a text of any size costs at most that many steps.
+ */
+export function textLength(text: string, stopAbove = Infinity): number {
+  let n = 0;
+  for (let i = 0; i < text.length && n <= stopAbove; i++) {
+    const c = text.charCodeAt(i);
+    // A surrogate pair is one character.
+    if (c >= 0xd800 && c <= 0xdbff && i + 1 < text.length) {
+      const d = text.charCodeAt(i + 1);
+      if (d >= 0xdc00 && d <= 0xdfff) i++;
+    }
+    n++;
+  }
+  return n;
+}
+
 function describe(value: unknown): string {
   if (value === null) return 'null';
   if (Array.isArray(value)) return 'a list';
@@ -35,10 +53,15 @@ export function textFieldParse(
 ): string {
   if (raw === undefined) return '';
   if (typeof raw !== 'string') throw new InputError(field, `got ${describe(raw)}; expected a text`);
-  const text = raw.normalize('NFC').replace(/\r\n?/g, '\n').trim();
   const max = options.maxLength ?? SHORT_TEXT_MAX_LENGTH;
-  if ([...text].length > max)
-    throw new InputError(field, `is ${[...text].length} characters long; at most ${max} are kept`);
+  // A text far over the limit is refused before it is normalised or copied: the limit plus room
+  // for the spaces trimmed and the accents composed by normalising.
+  const sentMax = 4 * max + 64;
+  if (textLength(raw, sentMax) > sentMax)
+    throw new InputError(field, `is more than ${sentMax} characters long; at most ${max} are kept`);
+  const text = raw.normalize('NFC').replace(/\r\n?/g, '\n').trim();
+  const length = textLength(text);
+  if (length > max) throw new InputError(field, `is ${length} characters long; at most ${max} are kept`);
   if (hasControlCharacter(text)) throw new InputError(field, 'contains a control character');
   if (!options.multiline && /[\n\t]/.test(text))
     throw new InputError(field, 'must be one line (no newline or tab)');

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundedFileSchema } from './input-bounds';
 import { analyzeReportSchema } from './schemas';
 import {
   backupResultSchema,
@@ -39,7 +40,7 @@ export const contract = {
   analyzeCorner: {
     input: z.strictObject({
       /** A corner file's content (DESIGN.md): read and checked by core, which names the bad field. */
-      file: z.unknown(),
+      file: boundedFileSchema,
       frequencies: z.array(z.number().finite().positive()).min(1).max(500).optional(),
     }),
     output: analyzeReportSchema,
@@ -79,7 +80,7 @@ export const contract = {
   setupSave: {
     /** A setup file's content; the vehicle and parent from here override the file's. */
     input: z.strictObject({
-      file: z.unknown(),
+      file: boundedFileSchema,
       vehicle: vehicleRefSchema.optional(),
       basedOnRevision: z.number().int().positive().optional(),
       /** The unit system the summary of what changed is written in (the sheet is stored SI). */

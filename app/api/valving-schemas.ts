@@ -3,6 +3,7 @@ import { CLICK_ADJUSTERS } from '../../core/click-settings';
 import { ISO8608_CLASSES } from '../../core/random-road';
 import { VALVING_HEADLINE_KEYS } from '../../core/valving-rank';
 import { VALVING_TARGET_KEYS } from '../../core/valving-targets';
+import { boundedFileSchema } from './input-bounds';
 import { warningSchema } from './schemas';
 import {
   clickSettingsSchema,
@@ -20,11 +21,11 @@ const ratio = finite;
 /** Edits of a preset, read by core (which names the bad field): see valvingSettingsOf. */
 const editsInput = {
   /** {road: {class, speed}, bump: {height, length, speed}, curb: {height, rise, hold, drop, speed}}. */
-  scenario: z.unknown().optional(),
+  scenario: boundedFileSchema.optional(),
   /** By target name: "off", "LOW..HIGH", or {low, high, scale, weight}. */
-  targets: z.unknown().optional(),
+  targets: boundedFileSchema.optional(),
   /** By target name: a weight (0 shows a target without scoring it). */
-  weights: z.unknown().optional(),
+  weights: boundedFileSchema.optional(),
 };
 
 export const valvingSourceSchema = z.strictObject({

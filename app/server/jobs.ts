@@ -5,6 +5,7 @@ import { apiCall } from '../api/call';
 import type { HandlerName } from '../api/contract';
 import { ValvingPool, valvingPoolDefaultThreads } from '../api/valving-pool';
 import { jobErrorOf } from './api-failure';
+import type { JobError } from './job-error';
 
 /** A long call (a large bench import, a backup, a valving sweep) that leaves the server free to answer. */
 export type JobState =
@@ -13,7 +14,7 @@ export type JobState =
   | { state: 'failed'; elapsedMs: number; error: JobError }
   | { state: 'cancelled'; elapsedMs: number };
 
-export type JobError = { field?: string; message: string; status: number };
+export type { JobError } from './job-error';
 
 /** `stop` ends the job's work: its thread terminated, or its signal aborted. */
 type Job = { started: number; state: JobState; stop: () => Promise<void> };

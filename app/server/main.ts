@@ -11,6 +11,7 @@ import { BUILT_DIR } from '../api/built-output';
 import { apiCall } from '../api/call';
 import { READY_PREFIX } from '../main/backend-process';
 import { apiFailureOf } from './api-failure';
+import { CallPool, OFF_THREAD } from './call-pool';
 import { serverStart } from './http-server';
 import { JobRunner } from './jobs';
 import { handlerInputCheck, handlerNameCheck } from './policy';
@@ -48,8 +49,18 @@ async function serverMain(argv: string[]): Promise<void> {
   const staticDir = fileURLToPath(new URL('../../dist/renderer/', import.meta.url));
   if (!existsSync(staticDir))
     console.error('rideledger serve: the renderer is not built; run `npm run build:renderer`');
-  // Run from the build, a job's thread runs the built worker too, not the sources through tsx.
+  // The server's own boundary answers every request; anything that still escapes (a stray
+  // callback's error) is logged and the backend keeps serving.
+  process.on('unhandledRejection', (e: unknown) =>
+    console.error(`rideledger serve: unexpected error, still serving: ${(e as Error)?.stack ?? String(e)}`),
+  );
+  process.on('uncaughtException', (e: Error) =>
+    console.error(`rideledger serve: unexpected error, still serving: ${e.stack ?? String(e)}`),
+  );
+  // Run from the build, the threads run the built workers too, not the sources through tsx.
   const jobs = new JobRunner(path, BUILT_DIR && { workerUrl: new URL('job-worker.js', BUILT_DIR) });
+  // Calls whose cost grows with their input run on kept threads, never on the server's.
+  const pool = new CallPool(path, BUILT_DIR && { workerUrl: new URL('call-worker.js', BUILT_DIR) });
   const server = await serverStart({
     staticDir,
     port,
@@ -58,6 +69,12 @@ async function serverMain(argv: string[]): Promise<void> {
       handlerInputCheck(handler, input);
       // A sweep asked for outright runs on the jobs' kept pool too, off this thread.
       return apiCall(handler, input, { store, valvingPool: jobs.valvingPool });
+    },
+    // Calls whose cost grows with their input go to the pool as text, read and run there.
+    dispatchText: (name, body) => {
+      const handler = handlerNameCheck(name);
+      // Where its threads could not start, the call runs here rather than not at all.
+      return OFF_THREAD.has(handler) && pool.available ? pool.run(handler, body) : undefined;
     },
     describeError: apiFailureOf,
     jobs: {
@@ -82,7 +99,7 @@ async function serverMain(argv: string[]): Promise<void> {
     );
   }
   const stop = async () => {
-    await jobs.closeAll();
+    await Promise.all([jobs.closeAll(), pool.close()]);
     await server.close();
     storeClose(store);
     process.exit(0);

@@ -61,6 +61,7 @@ beforeAll(async () => {
         : (e as { unknownHandler?: boolean }).unknownHandler
           ? { status: 404, message: (e as Error).message }
           : undefined,
+    log: () => {},
   });
 });
 afterAll(() => server.close());
