@@ -5,17 +5,48 @@ import globals from 'globals';
 
 /** Imports each layer may not make (DESIGN.md, Layers; STYLE.md, Layers you can see). */
 const nodeBuiltins = ['node:*', 'fs', 'path', 'os', 'child_process', 'worker_threads', 'http', 'crypto'];
+const coreOuterBans = [
+  {
+    group: ['electron', 'react', 'react-dom', 'react/*', 'recharts', 'better-sqlite3', ...nodeBuiltins],
+    message: 'core/ is pure TypeScript: no IO, no UI, no native modules.',
+  },
+  {
+    group: ['**/db/**', '**/app/**', '../db', '../app', '../../db', '../../app'],
+    message: 'core/ is the bottom layer: it imports nothing from db/ or app/.',
+  },
+];
+
+/**
+ * core/ by concept, bottom first: each folder may import only the folders it names (DEVELOPERS.md,
+ * Layout). A folder not named here may not be imported by any other.
+ */
+export const CORE_FOLDERS = {
+  numeric: [],
+  units: [],
+  safety: [],
+  damper: ['numeric', 'units'],
+  corner: ['numeric', 'units', 'damper'],
+  events: ['numeric', 'units', 'damper', 'corner'],
+  setup: ['numeric', 'units', 'damper', 'corner'],
+  figures: ['numeric', 'units', 'safety', 'damper', 'corner', 'events'],
+  valving: ['numeric', 'units', 'safety', 'damper', 'corner', 'events', 'setup'],
+};
+
+/** The no-restricted-imports options for one folder of core/. */
+function coreFolderBans(folder) {
+  const allowed = new Set([folder, ...CORE_FOLDERS[folder]]);
+  const banned = Object.keys(CORE_FOLDERS).filter((f) => !allowed.has(f));
+  const patterns = [...coreOuterBans];
+  if (banned.length > 0) {
+    patterns.push({
+      group: banned.map((f) => `../${f}/*`),
+      message: `core/${folder} may import only ${[...allowed].join(', ')} (eslint.config.js, CORE_FOLDERS).`,
+    });
+  }
+  return { patterns };
+}
 const coreBans = {
-  patterns: [
-    {
-      group: ['electron', 'react', 'react-dom', 'react/*', 'recharts', 'better-sqlite3', ...nodeBuiltins],
-      message: 'core/ is pure TypeScript: no IO, no UI, no native modules.',
-    },
-    {
-      group: ['**/db/**', '**/app/**', '../db', '../app'],
-      message: 'core/ is the bottom layer: it imports nothing from db/ or app/.',
-    },
-  ],
+  patterns: [...coreOuterBans, { group: ['./*/*'], message: 'core/ files live in a concept folder.' }],
 };
 const dbBans = {
   patterns: [
@@ -50,7 +81,11 @@ export default tseslint.config(
       eqeqeq: ['error', 'always'],
     },
   },
-  { files: ['core/**/*.ts'], rules: { 'no-restricted-imports': ['error', coreBans] } },
+  { files: ['core/*.ts'], rules: { 'no-restricted-imports': ['error', coreBans] } },
+  ...Object.keys(CORE_FOLDERS).map((folder) => ({
+    files: [`core/${folder}/**/*.ts`],
+    rules: { 'no-restricted-imports': ['error', coreFolderBans(folder)] },
+  })),
   { files: ['db/**/*.ts'], rules: { 'no-restricted-imports': ['error', dbBans] } },
   {
     files: ['app/renderer/**/*.{ts,tsx}'],

@@ -1,7 +1,7 @@
 import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, statSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import Database from 'better-sqlite3';
-import { InputError } from '../core/input-error';
+import { InputError } from '../core/units/input-error';
 import { storeEventInsert } from './queries/store-event';
 import type { Store } from './store';
 

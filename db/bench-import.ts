@@ -1,14 +1,14 @@
-import { canonicalJson } from '../core/canonical-json';
+import { canonicalJson } from '../core/setup/canonical-json';
 import {
   benchFit,
   benchOffsetText,
   benchPointsLessGas,
   benchZeroSpeedOffset,
   type BenchFit,
-} from '../core/bench-fit';
-import { benchTableRead, type BenchTableOptions, type BenchTableRun } from '../core/bench-table';
-import { clickSettingsText } from '../core/click-settings';
-import { InputError } from '../core/input-error';
+} from '../core/damper/bench-fit';
+import { benchTableRead, type BenchTableOptions, type BenchTableRun } from '../core/damper/bench-table';
+import { clickSettingsText } from '../core/damper/click-settings';
+import { InputError } from '../core/units/input-error';
 import { benchPointsEncode, benchTraceEncode, sha256Hex } from './bench-points';
 import { benchRunInsert, benchRunsFromSource } from './queries/bench-run';
 import { damperUnitEnsure, type DamperUnitFields } from './damper-units';

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import type { BenchPoints } from '../core/bench-trace';
+import type { BenchPoints } from '../core/damper/bench-trace';
 
 /**
  * Points as stored: float64 pairs (velocity, force) interleaved. Little-endian is the byte

@@ -1,8 +1,8 @@
-import { canonicalJson } from '../core/canonical-json';
-import type { ClickSettings } from '../core/click-settings';
-import { InputError } from '../core/input-error';
-import { CORNER_POSITIONS, type CornerPosition } from '../core/setup-sheet';
-import { nameFieldParse, nameKey } from '../core/text-field';
+import { canonicalJson } from '../core/setup/canonical-json';
+import type { ClickSettings } from '../core/damper/click-settings';
+import { InputError } from '../core/units/input-error';
+import { CORNER_POSITIONS, type CornerPosition } from '../core/setup/setup-sheet';
+import { nameFieldParse, nameKey } from '../core/units/text-field';
 import { sha256Hex } from './bench-points';
 import { cornerStoredCheck } from './corner-stored';
 import { benchRunInsert, benchRunRowsOfDamper } from './queries/bench-run';

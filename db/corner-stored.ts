@@ -1,6 +1,6 @@
-import type { CornerInput } from '../core/corner';
-import { cornerInputParse, cornerInputToFile } from '../core/corner-file';
-import { InputError } from '../core/input-error';
+import type { CornerInput } from '../core/corner/corner';
+import { cornerInputParse, cornerInputToFile } from '../core/corner/corner-file';
+import { InputError } from '../core/units/input-error';
 
 /**
  * Checks a corner input held as SI JSON (a bundle's or the database's) the way a corner

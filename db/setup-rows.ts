@@ -1,12 +1,12 @@
-import type { ClickSettings } from '../core/click-settings';
-import { canonicalJson } from '../core/canonical-json';
-import type { CornerInput } from '../core/corner';
+import type { ClickSettings } from '../core/damper/click-settings';
+import { canonicalJson } from '../core/setup/canonical-json';
+import type { CornerInput } from '../core/corner/corner';
 import {
   CORNER_POSITIONS,
   type CornerPosition,
   type SetupCorner,
   type SetupSheet,
-} from '../core/setup-sheet';
+} from '../core/setup/setup-sheet';
 import type { SetupCornerReadRow } from './queries/setup-corner';
 import type { SetupRevisionInsert } from './queries/setup-revision';
 import type { SetupCornerRow, SetupRevisionRow } from './rows';

@@ -1,9 +1,9 @@
 import type Database from 'better-sqlite3';
-import { InputError } from '../core/input-error';
-import { setupDiff, setupDiffSummary } from '../core/setup-diff';
-import { CORNER_POSITIONS, type SetupSheet } from '../core/setup-sheet';
-import { nameKey } from '../core/text-field';
-import type { UnitSystem } from '../core/units';
+import { InputError } from '../core/units/input-error';
+import { setupDiff, setupDiffSummary } from '../core/setup/setup-diff';
+import { CORNER_POSITIONS, type SetupSheet } from '../core/setup/setup-sheet';
+import { nameKey } from '../core/units/text-field';
+import type { UnitSystem } from '../core/units/units';
 import { damperUnitEnsure } from './damper-units';
 import { setupCornerInsert, setupCornersOf } from './queries/setup-corner';
 import {

@@ -1,7 +1,7 @@
 import { existsSync, mkdirSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import Database from 'better-sqlite3';
-import { InputError } from '../core/input-error';
+import { InputError } from '../core/units/input-error';
 import { migrationsApplied, migrationsApply, migrationsKnown, schemaVersionLatest } from './migrations';
 
 /** An open RideLedger database. */

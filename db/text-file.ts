@@ -1,5 +1,5 @@
 import { readFileSync, statSync } from 'node:fs';
-import { InputError } from '../core/input-error';
+import { InputError } from '../core/units/input-error';
 
 /** The largest text file read whole: well inside what one JavaScript string can hold. */
 export const TEXT_FILE_MAX_BYTES = 256 * 2 ** 20;

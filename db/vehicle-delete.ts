@@ -1,4 +1,4 @@
-import { InputError } from '../core/input-error';
+import { InputError } from '../core/units/input-error';
 import { storeBackup } from './backup';
 import { setupCornerDeleteOfVehicle } from './queries/setup-corner';
 import { setupRevisionDeleteOfVehicle, setupRevisionList } from './queries/setup-revision';

@@ -1,6 +1,6 @@
 import type Database from 'better-sqlite3';
-import { InputError } from '../core/input-error';
-import { nameKey } from '../core/text-field';
+import { InputError } from '../core/units/input-error';
+import { nameKey } from '../core/units/text-field';
 import { vehicleById, vehicleByKey, vehicleList } from './queries/vehicle';
 import type { VehicleRow } from './rows';
 

@@ -1,4 +1,4 @@
-import { InputError } from '../core/input-error';
+import { InputError } from '../core/units/input-error';
 
 /** The InputError `fn` throws; any other outcome fails the test. */
 export function inputErrorOf(fn: () => unknown): InputError {

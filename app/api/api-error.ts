@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 
 /**
  * Turns a zod failure into the program's one input error, naming the first bad field the

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { NOTES_MAX_LENGTH } from '../../core/text-field';
+import { NOTES_MAX_LENGTH } from '../../core/units/text-field';
 
 /**
  * Sizes a corner or setup file may have, checked before core reads it: a file past them is

@@ -1,4 +1,4 @@
-import type { BenchFit } from '../../core/bench-fit';
+import type { BenchFit } from '../../core/damper/bench-fit';
 import type { DamperUnitListRow } from '../../db/queries/damper-unit';
 import type { SetupRevisionListRow } from '../../db/queries/setup-revision';
 import type { VehicleListRow } from '../../db/queries/vehicle';

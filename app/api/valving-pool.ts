@@ -7,14 +7,14 @@ import {
   valvingJobSize,
   type ValvingFigures,
   type ValvingJob,
-} from '../../core/valving-evaluate';
+} from '../../core/valving/valving-evaluate';
 import {
   ValvingSweepStopped,
   valvingChunkEvaluate,
   valvingChunkRanges,
   valvingSweepMerge,
   type ValvingChunk,
-} from '../../core/valving-sweep';
+} from '../../core/valving/valving-sweep';
 import { BUILT_DIR } from './built-output';
 
 export type ValvingSweepOptions = {

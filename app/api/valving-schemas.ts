@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { CLICK_ADJUSTERS } from '../../core/click-settings';
-import { ISO8608_CLASSES } from '../../core/random-road';
-import { VALVING_HEADLINE_KEYS } from '../../core/valving-rank';
-import { VALVING_TARGET_KEYS } from '../../core/valving-targets';
+import { CLICK_ADJUSTERS } from '../../core/damper/click-settings';
+import { ISO8608_CLASSES } from '../../core/corner/random-road';
+import { VALVING_HEADLINE_KEYS } from '../../core/valving/valving-rank';
+import { VALVING_TARGET_KEYS } from '../../core/valving/valving-targets';
 import { boundedFileSchema } from './input-bounds';
 import { warningSchema } from './schemas';
 import {

@@ -1,6 +1,6 @@
 import { parentPort } from 'node:worker_threads';
-import { valvingEvaluatorOf, type ValvingEvaluator } from '../../core/valving-evaluate';
-import { valvingChunkEvaluate } from '../../core/valving-sweep';
+import { valvingEvaluatorOf, type ValvingEvaluator } from '../../core/valving/valving-evaluate';
+import { valvingChunkEvaluate } from '../../core/valving/valving-sweep';
 import type { ValvingWorkerReply, ValvingWorkerRequest } from './valving-pool';
 
 /**

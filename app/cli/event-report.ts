@@ -1,6 +1,6 @@
-import { eventLabel, type RoadEvent } from '../../core/event';
-import type { EventMetrics } from '../../core/metrics';
-import { numberFormat, quantityFormat, type UnitSystem } from '../../core/units';
+import { eventLabel, type RoadEvent } from '../../core/events/event';
+import type { EventMetrics } from '../../core/events/metrics';
+import { numberFormat, quantityFormat, type UnitSystem } from '../../core/units/units';
 import { tableFormat } from './table';
 
 /** The readable table of an event's metrics: a heading line, then the figures with units. */

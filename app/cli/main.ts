@@ -1,4 +1,4 @@
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_OK, UsageError, type CliIo } from './cli-io';
 
 type CommandRun = (args: string[], io: CliIo) => Promise<number>;

@@ -1,5 +1,5 @@
 import { existsSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { fileErrorText } from '../../db/text-file';
 
 /**

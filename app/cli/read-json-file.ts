@@ -1,5 +1,5 @@
 import { readFile } from 'node:fs/promises';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 
 /** Reads a JSON file; a missing, unreadable, empty or malformed file is an InputError naming it. */
 export async function readJsonFile(path: string): Promise<unknown> {

@@ -1,4 +1,4 @@
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { apiCall } from '../api/call';
 import type { ApiContext } from '../api/context';
 import { UsageError } from './cli-io';

@@ -1,6 +1,6 @@
 import { existsSync, rmSync } from 'node:fs';
 import { homedir } from 'node:os';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { storeClose, storeOpen } from '../../db/store';
 import { storePathResolve } from '../../db/store-path';
 import type { ApiContext } from '../api/context';

@@ -1,4 +1,4 @@
-import { CORNER_POSITIONS } from '../../core/setup-sheet';
+import { CORNER_POSITIONS } from '../../core/setup/setup-sheet';
 import {
   numberFormat,
   quantityFormat,
@@ -6,15 +6,15 @@ import {
   quantityUnitLabel,
   type QuantityKind,
   type UnitSystem,
-} from '../../core/units';
-import { VALVING_HEADLINES, type ValvingHeadlineKey } from '../../core/valving-rank';
+} from '../../core/units/units';
+import { VALVING_HEADLINES, type ValvingHeadlineKey } from '../../core/valving/valving-rank';
 import {
   VALVING_TARGET_KEYS,
   VALVING_TARGET_SPECS,
   valvingTargetAssignmentParse,
   type ValvingTargetKey,
-} from '../../core/valving-targets';
-import { InputError } from '../../core/input-error';
+} from '../../core/valving/valving-targets';
+import { InputError } from '../../core/units/input-error';
 import type { HandlerOutput } from '../api/contract';
 import { UsageError } from './cli-io';
 import { readJsonFile } from './read-json-file';

@@ -1,26 +1,31 @@
-import { cornerQuarterCar, cornerValidate, type CornerFigures, type CornerInput } from '../../core/corner';
-import { cornerAnalyze } from '../../core/corner-analysis';
-import { bumpSpecParse, roadSpecParse, type BumpSpec, type RoadSpec } from '../../core/corner-file';
-import { eventBump } from '../../core/event';
-import { eventWarnings } from '../../core/event-warnings';
-import { frequencyResponseGrid, type FrequencyResponseMagnitude } from '../../core/frequency-response';
-import { InputError } from '../../core/input-error';
-import type { EventMetrics } from '../../core/metrics';
-import type { Modes } from '../../core/modal';
-import type { RandomRoadResponse } from '../../core/random-road';
-import { ISO8608_CLASSES } from '../../core/random-road';
-import { setupFileParse } from '../../core/setup-file';
-import { CORNER_POSITIONS, type CornerPosition } from '../../core/setup-sheet';
-import { eventSimulate } from '../../core/simulate';
-import { stepResponseHistory, STEP_HEIGHT, type StepResponse } from '../../core/step-response';
+import {
+  cornerQuarterCar,
+  cornerValidate,
+  type CornerFigures,
+  type CornerInput,
+} from '../../core/corner/corner';
+import { cornerAnalyze } from '../../core/figures/corner-analysis';
+import { bumpSpecParse, roadSpecParse, type BumpSpec, type RoadSpec } from '../../core/corner/corner-file';
+import { eventBump } from '../../core/events/event';
+import { eventWarnings } from '../../core/events/event-warnings';
+import { frequencyResponseGrid, type FrequencyResponseMagnitude } from '../../core/corner/frequency-response';
+import { InputError } from '../../core/units/input-error';
+import type { EventMetrics } from '../../core/events/metrics';
+import type { Modes } from '../../core/corner/modal';
+import type { RandomRoadResponse } from '../../core/corner/random-road';
+import { ISO8608_CLASSES } from '../../core/corner/random-road';
+import { setupFileParse } from '../../core/setup/setup-file';
+import { CORNER_POSITIONS, type CornerPosition } from '../../core/setup/setup-sheet';
+import { eventSimulate } from '../../core/events/simulate';
+import { stepResponseHistory, STEP_HEIGHT, type StepResponse } from '../../core/corner/step-response';
 import {
   numberFormat,
   quantityFormat,
   quantityUnitLabel,
   type QuantityKind,
   type UnitSystem,
-} from '../../core/units';
-import { cornerWarnings, type ModelWarning } from '../../core/warnings';
+} from '../../core/units/units';
+import { cornerWarnings, type ModelWarning } from '../../core/corner/warnings';
 import type { BarSeries, PlotSeries } from './components/plot-data';
 import { quantityDisplayFactor, quantityFieldConvert, quantityFieldValue } from './quantity-field';
 

@@ -1,5 +1,5 @@
-import type { CornerInput } from '../../core/corner';
-import type { CornerPosition } from '../../core/setup-sheet';
+import type { CornerInput } from '../../core/corner/corner';
+import type { CornerPosition } from '../../core/setup/setup-sheet';
 import { setupAnalyze, type AnalysisOptions, type AnalysisResult } from './analysis-model';
 
 /** What the page asks of the analysis worker. */

@@ -1,5 +1,5 @@
-import type { CornerInput } from '../../core/corner';
-import type { CornerPosition } from '../../core/setup-sheet';
+import type { CornerInput } from '../../core/corner/corner';
+import type { CornerPosition } from '../../core/setup/setup-sheet';
 import type { AnalysisOptions, AnalysisResult } from './analysis-model';
 import type { AnalysisReply, AnalysisRequest } from './analysis-request';
 

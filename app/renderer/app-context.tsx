@@ -1,5 +1,5 @@
 import { createContext, useContext } from 'react';
-import type { UnitSystem } from '../../core/units';
+import type { UnitSystem } from '../../core/units/units';
 
 /** The screens of the app, in the order the header lists them. */
 export const SCREENS = [

@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo, useState } from 'react';
-import { CAUTION_TEXT } from '../../core/caution';
-import type { UnitSystem } from '../../core/units';
+import { CAUTION_TEXT } from '../../core/safety/caution';
+import type { UnitSystem } from '../../core/units/units';
 import { apiCall } from './api-client';
 import {
   AppContext,

@@ -1,17 +1,21 @@
-import { csvHeaderRead, csvRowsPreview, type CsvHeader } from '../../core/bench-csv';
-import { benchFit, benchPointsLessGas, benchZeroSpeedOffset } from '../../core/bench-fit';
+import { csvHeaderRead, csvRowsPreview, type CsvHeader } from '../../core/damper/bench-csv';
+import { benchFit, benchPointsLessGas, benchZeroSpeedOffset } from '../../core/damper/bench-fit';
 import {
   benchHeaderCellParse,
   benchTableRead,
   type BenchColumnRole,
   type BenchHeaderCell,
   type BenchTableOptions,
-} from '../../core/bench-table';
-import { calendarDateParse } from '../../core/calendar-date';
-import { clickSettingsFromText, clickSettingsText, type ClickSettings } from '../../core/click-settings';
-import { InputError } from '../../core/input-error';
-import { nameFieldParse } from '../../core/text-field';
-import { quantityParse, quantityUnitLabel, type QuantityKind, type UnitSystem } from '../../core/units';
+} from '../../core/damper/bench-table';
+import { calendarDateParse } from '../../core/units/calendar-date';
+import {
+  clickSettingsFromText,
+  clickSettingsText,
+  type ClickSettings,
+} from '../../core/damper/click-settings';
+import { InputError } from '../../core/units/input-error';
+import { nameFieldParse } from '../../core/units/text-field';
+import { quantityParse, quantityUnitLabel, type QuantityKind, type UnitSystem } from '../../core/units/units';
 import type { HandlerInput } from '../api/contract';
 import { quantityFieldValue } from './quantity-field';
 

@@ -1,4 +1,4 @@
-import { clickSettingsText, type ClickSettings } from '../../core/click-settings';
+import { clickSettingsText, type ClickSettings } from '../../core/damper/click-settings';
 import {
   cornerSprungMass,
   cornerWheelRate,
@@ -6,10 +6,10 @@ import {
   dampingClassOf,
   type CornerInput,
   type DampingClass,
-} from '../../core/corner';
-import { damperDirectionForce, damperForce, type DamperDirectionCurve } from '../../core/damper-curve';
-import { InputError } from '../../core/input-error';
-import { numberParse, quantityParse, quantityUnitLabel, type UnitSystem } from '../../core/units';
+} from '../../core/corner/corner';
+import { damperDirectionForce, damperForce, type DamperDirectionCurve } from '../../core/damper/damper-curve';
+import { InputError } from '../../core/units/input-error';
+import { numberParse, quantityParse, quantityUnitLabel, type UnitSystem } from '../../core/units/units';
 import type { HandlerOutput } from '../api/contract';
 import type { PlotSeries } from './components/plot-data';
 import { quantityDisplayFactor, quantityFieldConvert, quantityFieldValue } from './quantity-field';

@@ -4,7 +4,7 @@ import {
   quantityUnitText,
   type QuantityKind,
   type UnitSystem,
-} from '../../core/units';
+} from '../../core/units/units';
 
 const NUMBER_ONLY = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 

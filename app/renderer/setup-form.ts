@@ -1,8 +1,8 @@
-import type { CornerInput } from '../../core/corner';
-import { cornerInputParse } from '../../core/corner-file';
-import { InputError } from '../../core/input-error';
-import { SETUP_FILE_FORMAT, SETUP_FILE_VERSION, setupFileParse } from '../../core/setup-file';
-import { CORNER_POSITIONS, type CornerPosition } from '../../core/setup-sheet';
+import type { CornerInput } from '../../core/corner/corner';
+import { cornerInputParse } from '../../core/corner/corner-file';
+import { InputError } from '../../core/units/input-error';
+import { SETUP_FILE_FORMAT, SETUP_FILE_VERSION, setupFileParse } from '../../core/setup/setup-file';
+import { CORNER_POSITIONS, type CornerPosition } from '../../core/setup/setup-sheet';
 import {
   quantityParse,
   quantityToDisplay,
@@ -10,7 +10,7 @@ import {
   quantityUnitText,
   type QuantityKind,
   type UnitSystem,
-} from '../../core/units';
+} from '../../core/units/units';
 
 /**
  * The setup editor's model: the setup file's tree (our format) with every editable leaf held

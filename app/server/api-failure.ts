@@ -1,4 +1,4 @@
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import type { ApiFailure } from './http-server';
 import type { JobError } from './job-error';
 import { PolicyRefusal } from './policy';

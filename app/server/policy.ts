@@ -1,4 +1,4 @@
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { contract, type HandlerName } from '../api/contract';
 
 /**

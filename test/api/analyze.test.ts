@@ -1,10 +1,10 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { apiCall } from '../../app/api/call';
-import { cornerFileParse } from '../../core/corner-file';
-import { eventBump } from '../../core/event';
-import { InputError } from '../../core/input-error';
-import { eventSimulate } from '../../core/simulate';
+import { cornerFileParse } from '../../core/corner/corner-file';
+import { eventBump } from '../../core/events/event';
+import { InputError } from '../../core/units/input-error';
+import { eventSimulate } from '../../core/events/simulate';
 import { MILLBROOK_FRONT_LEFT } from '../core/demo-corner';
 import { freshContext } from './api-fixture';
 

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { apiCall } from '../../app/api/call';
 import { contract } from '../../app/api/contract';
 import { handlers } from '../../app/api/handlers/index';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { freshContext } from './api-fixture';
 
 describe('apiCall', () => {

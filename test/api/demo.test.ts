@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { apiCall } from '../../app/api/call';
-import { WARNING_BANDS } from '../../core/warnings';
+import { WARNING_BANDS } from '../../core/corner/warnings';
 import { storeDigest } from '../db/store-fixture';
 import { freshContext } from './api-fixture';
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { apiCall } from '../../app/api/call';
-import { CAUTION_TEXT } from '../../core/caution';
+import { CAUTION_TEXT } from '../../core/safety/caution';
 import { setupFileFixture } from '../core/setup-fixture';
 import { storeDigest } from '../db/store-fixture';
 import { freshContext } from './api-fixture';

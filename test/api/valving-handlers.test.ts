@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { apiCall } from '../../app/api/call';
 import { ValvingPool, valvingSweepParallel } from '../../app/api/valving-pool';
-import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../core/caution';
-import { valvingJobOf } from '../../core/valving';
-import { valvingComboEvaluate } from '../../core/valving-evaluate';
-import { VALVING_PRESETS } from '../../core/valving-presets';
-import { ValvingSweepStopped, valvingSweepSerial } from '../../core/valving-sweep';
+import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../core/safety/caution';
+import { valvingJobOf } from '../../core/valving/valving';
+import { valvingComboEvaluate } from '../../core/valving/valving-evaluate';
+import { VALVING_PRESETS } from '../../core/valving/valving-presets';
+import { ValvingSweepStopped, valvingSweepSerial } from '../../core/valving/valving-sweep';
 import { MILLBROOK_FRONT_LEFT } from '../core/demo-corner';
 import { bilinear, cellOf } from '../core/valving-fixture';
 import { storeDigest } from '../db/store-fixture';

@@ -1,8 +1,8 @@
 import { describe, expect, it, vi } from 'vitest';
 import { ValvingPool } from '../../app/api/valving-pool';
-import { valvingJobOf } from '../../core/valving';
-import { VALVING_PRESETS } from '../../core/valving-presets';
-import { valvingSweepSerial } from '../../core/valving-sweep';
+import { valvingJobOf } from '../../core/valving/valving';
+import { VALVING_PRESETS } from '../../core/valving/valving-presets';
+import { valvingSweepSerial } from '../../core/valving/valving-sweep';
 import { MILLBROOK_FRONT_LEFT } from '../core/demo-corner';
 import { bilinear, cellOf } from '../core/valving-fixture';
 

@@ -16,7 +16,7 @@ import { Worker } from 'node:worker_threads';
 import { apiCall } from '../../app/api/call';
 import { benchSweepCells } from '../../app/cli/commands/bench-sweep';
 import { JobRunner, type JobMessage, type JobState } from '../../app/server/jobs';
-import { damperForce } from '../../core/damper-curve';
+import { damperForce } from '../../core/damper/damper-curve';
 import { storeClose, storeOpen } from '../../db/store';
 
 const CLICKS = 30;

@@ -2,9 +2,9 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { cornerFileParse } from '../../core/corner-file';
-import { cornerRideFigures } from '../../core/corner';
-import { CAUTION_TEXT } from '../../core/caution';
+import { cornerFileParse } from '../../core/corner/corner-file';
+import { cornerRideFigures } from '../../core/corner/corner';
+import { CAUTION_TEXT } from '../../core/safety/caution';
 import { PROJECT_ROOT, runBin, runCli } from './run-cli';
 
 const DEMO = `${PROJECT_ROOT}assets/demo/club-coupe-front-left.json`;

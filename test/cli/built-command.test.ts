@@ -30,12 +30,12 @@ describe('the built command (dist/node)', () => {
   it('finds its build stale when a source is saved after it', () => {
     runBin(['--help']);
     expect(nodeBuildStale()).toBeNull();
-    const source = `${PROJECT_ROOT}core/units.ts`;
+    const source = `${PROJECT_ROOT}core/units/units.ts`;
     const before = statSync(source);
     try {
       // As an editor's save would: a newer modification time.
       utimesSync(source, before.atime, new Date(before.mtimeMs + 2000));
-      expect(nodeBuildStale()).toBe('core/units.ts changed since the last build');
+      expect(nodeBuildStale()).toBe('core/units/units.ts changed since the last build');
     } finally {
       utimesSync(source, before.atime, before.mtime);
     }
@@ -46,10 +46,10 @@ describe('the built command (dist/node)', () => {
     runBin(['--help']);
     const record = `${PROJECT_ROOT}dist/node/build.json`;
     const built = JSON.parse(readFileSync(record, 'utf8')) as { inputs: Record<string, string> };
-    // The record of a build made before core/units.ts was last saved.
-    built.inputs['core/units.ts'] = '0:0';
+    // The record of a build made before core/units/units.ts was last saved.
+    built.inputs['core/units/units.ts'] = '0:0';
     writeFileSync(record, JSON.stringify(built));
-    expect(nodeBuildStale()).toBe('core/units.ts changed since the last build');
+    expect(nodeBuildStale()).toBe('core/units/units.ts changed since the last build');
     const r = runBin(['analyze', DEMO, '--json']);
     expect(r.code).toBe(0);
     expect(r.stderr).toBe('');

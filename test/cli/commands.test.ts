@@ -2,7 +2,7 @@ import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { CAUTION_TEXT } from '../../core/caution';
+import { CAUTION_TEXT } from '../../core/safety/caution';
 import { schemaVersionLatest } from '../../db/migrations';
 import { storeClose, storeOpen } from '../../db/store';
 import { tempFolder } from '../db/store-fixture';

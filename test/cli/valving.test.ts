@@ -2,7 +2,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../core/caution';
+import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../core/safety/caution';
 import { storeDigest, tempFolder } from '../db/store-fixture';
 import { cli, fileDigest } from './cli-fixture';
 import { runBin } from './run-cli';

@@ -1,4 +1,4 @@
-import type { CornerInput } from '../../core/corner';
+import type { CornerInput } from '../../core/corner/corner';
 
 /**
  * The invented Millbrook club coupe #27, front left, as assets/demo/club-coupe-front-left.json

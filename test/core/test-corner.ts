@@ -1,4 +1,4 @@
-import type { CornerInput } from '../../core/corner';
+import type { CornerInput } from '../../core/corner/corner';
 
 /** An invented, sound corner for the tests (not from any source); it raises no warning. */
 export function testCorner(over: Partial<CornerInput> = {}): CornerInput {

@@ -1,7 +1,7 @@
-import { benchFit } from '../../core/bench-fit';
-import type { ClickSettings } from '../../core/click-settings';
-import type { CornerInput } from '../../core/corner';
-import type { ValvingCurveCell, ValvingDirectionCurve, ValvingRun } from '../../core/valving-map';
+import { benchFit } from '../../core/damper/bench-fit';
+import type { ClickSettings } from '../../core/damper/click-settings';
+import type { CornerInput } from '../../core/corner/corner';
+import type { ValvingCurveCell, ValvingDirectionCurve, ValvingRun } from '../../core/valving/valving-map';
 import { MILLBROOK_FRONT_LEFT } from './demo-corner';
 
 /** Bench points of a damper, compression positive, from −0.5 to 0.5 m/s: what a dyno sweep records. */

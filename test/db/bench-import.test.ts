@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { benchImport, type BenchImportRequest } from '../../db/bench-import';
 import { benchPointsDecode } from '../../db/bench-points';
 import { benchRunById, benchRunListOfDamper } from '../../db/queries/bench-run';

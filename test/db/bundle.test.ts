@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { benchImport } from '../../db/bench-import';
 import { bundleExport, bundleImport, type Bundle } from '../../db/bundle';
 import { setupSave } from '../../db/setup-store';
-import { setupFileParse } from '../../core/setup-file';
+import { setupFileParse } from '../../core/setup/setup-file';
 import { setupFileFixture } from '../core/setup-fixture';
 import { freshStore, setupSaved, storeDigest, vehicleAdded } from './store-fixture';
 

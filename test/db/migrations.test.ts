@@ -3,7 +3,7 @@ import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { migrationsApplied, migrationsKnown, schemaVersionLatest } from '../../db/migrations';
 import { storeClose, storeOpen } from '../../db/store';
 import { freshStore, tempFolder } from './store-fixture';

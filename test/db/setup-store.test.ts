@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { setupFileParse } from '../../core/setup-file';
+import { setupFileParse } from '../../core/setup/setup-file';
 import { damperUnitList } from '../../db/queries/damper-unit';
 import { setupRevisionList } from '../../db/queries/setup-revision';
 import { setupRevisionResolve, setupSave, setupSheetRead } from '../../db/setup-store';

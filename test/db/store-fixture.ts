@@ -3,7 +3,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { onTestFinished } from 'vitest';
-import { setupFileParse } from '../../core/setup-file';
+import { setupFileParse } from '../../core/setup/setup-file';
 import { vehicleInsert } from '../../db/queries/vehicle';
 import type { VehicleRow } from '../../db/rows';
 import { setupSave } from '../../db/setup-store';

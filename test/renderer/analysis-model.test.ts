@@ -11,8 +11,8 @@ import {
   setupAnalyze,
   type AnalysisOptions,
 } from '../../app/renderer/analysis-model';
-import type { CornerInput } from '../../core/corner';
-import { InputError } from '../../core/input-error';
+import type { CornerInput } from '../../core/corner/corner';
+import { InputError } from '../../core/units/input-error';
 import { WORKED_CORNER, fourOf } from './worked-corner';
 
 const demoFile = (name: string) =>

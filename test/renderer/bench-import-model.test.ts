@@ -12,7 +12,7 @@ import {
   benchProblemText,
   type BenchMapping,
 } from '../../app/renderer/bench-import-model';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { storeDigest } from '../db/store-fixture';
 import { freshContext } from '../api/api-fixture';
 import { benchPointTable } from '../db/bench-fixture';

@@ -1,6 +1,6 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { setupFileParse } from '../../core/setup-file';
+import { setupFileParse } from '../../core/setup/setup-file';
 import {
   setupFormBlank,
   setupFormConvert,

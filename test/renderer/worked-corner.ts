@@ -1,5 +1,5 @@
-import type { CornerInput } from '../../core/corner';
-import type { CornerPosition } from '../../core/setup-sheet';
+import type { CornerInput } from '../../core/corner/corner';
+import type { CornerPosition } from '../../core/setup/setup-sheet';
 
 /**
  * The worked random-road case of REFERENCES §5 as a corner: ms 250 kg, mu 35 kg, ks 16 kN/m,

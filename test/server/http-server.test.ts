@@ -5,7 +5,7 @@ import { networkInterfaces, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { API_PREFIX, TOKEN_HEADER, serverStart, type RunningServer } from '../../app/server/http-server';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 
 type Reply = { status: number; body: string; headers: Record<string, string | string[] | undefined> };
 

@@ -5,8 +5,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiCall } from '../../app/api/call';
 import type { HandlerName } from '../../app/api/contract';
 import { FILE_DEPTH_MAX, FILE_TEXT_MAX, TABLE_POINTS_MAX } from '../../app/api/input-bounds';
-import { InputError } from '../../core/input-error';
-import { NAME_MAX_LENGTH, NOTES_MAX_LENGTH, textFieldParse, textLength } from '../../core/text-field';
+import { InputError } from '../../core/units/input-error';
+import { NAME_MAX_LENGTH, NOTES_MAX_LENGTH, textFieldParse, textLength } from '../../core/units/text-field';
 import { storeClose, storeOpen, type Store } from '../../db/store';
 
 // Sizes are limited before anything is parsed or copied (issue 11, item 2): a field over its

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { apiCall } from '../../app/api/call';
 import type { HandlerOutput } from '../../app/api/contract';
 import type { ValvingSweepOptions } from '../../app/api/valving-pool';
-import type { ValvingJob } from '../../core/valving-evaluate';
+import type { ValvingJob } from '../../core/valving/valving-evaluate';
 import { JobRunner, type JobState } from '../../app/server/jobs';
 import { storeClose, storeOpen } from '../../db/store';
 import { storeDigest } from '../db/store-fixture';

@@ -10,7 +10,7 @@ import {
   serverStart,
   type RunningServer,
 } from '../../app/server/http-server';
-import { InputError } from '../../core/input-error';
+import { InputError } from '../../core/units/input-error';
 import { httpRequestArbitrary, rawRequest, rawStatusOf } from './backend-child';
 
 // Requests that ended the backend process (issue 11): each is sent on a raw socket to

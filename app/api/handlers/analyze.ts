@@ -1,7 +1,7 @@
-import type { CornerFigures } from '../../../core/corner';
-import { cornerAnalyze, type CornerAnalysis } from '../../../core/corner-analysis';
-import { cornerFileParse } from '../../../core/corner-file';
-import type { UnitSystem } from '../../../core/units';
+import type { CornerFigures } from '../../../core/corner/corner';
+import { cornerAnalyze, type CornerAnalysis } from '../../../core/figures/corner-analysis';
+import { cornerFileParse } from '../../../core/corner/corner-file';
+import type { UnitSystem } from '../../../core/units/units';
 import type { HandlerInput, HandlerOutput } from '../contract';
 import type { AnalyzeReport } from '../schemas';
 

@@ -1,10 +1,10 @@
 import { basename } from 'node:path';
-import type { BenchTableOptions } from '../../../core/bench-table';
-import { calendarDateParse } from '../../../core/calendar-date';
-import { clickSettingsFromText, clickSettingsParse } from '../../../core/click-settings';
-import { InputError } from '../../../core/input-error';
-import { nameFieldParse, NOTES_MAX_LENGTH, textFieldParse } from '../../../core/text-field';
-import { quantityParse, type QuantityKind } from '../../../core/units';
+import type { BenchTableOptions } from '../../../core/damper/bench-table';
+import { calendarDateParse } from '../../../core/units/calendar-date';
+import { clickSettingsFromText, clickSettingsParse } from '../../../core/damper/click-settings';
+import { InputError } from '../../../core/units/input-error';
+import { nameFieldParse, NOTES_MAX_LENGTH, textFieldParse } from '../../../core/units/text-field';
+import { quantityParse, type QuantityKind } from '../../../core/units/units';
 import { benchImport } from '../../../db/bench-import';
 import { benchPointsDecode } from '../../../db/bench-points';
 import { benchRunById, benchRunListOfDamper } from '../../../db/queries/bench-run';

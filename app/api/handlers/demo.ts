@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { InputError } from '../../../core/input-error';
-import { nameKey } from '../../../core/text-field';
+import { InputError } from '../../../core/units/input-error';
+import { nameKey } from '../../../core/units/text-field';
 import { damperUnitEnsure } from '../../../db/damper-units';
 import { storeEventInsert } from '../../../db/queries/store-event';
 import { vehicleByKey } from '../../../db/queries/vehicle';

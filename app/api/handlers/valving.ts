@@ -1,20 +1,24 @@
 import type Database from 'better-sqlite3';
-import type { BenchFit } from '../../../core/bench-fit';
-import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../../core/caution';
-import { InputError } from '../../../core/input-error';
-import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../../../core/setup-sheet';
-import { valvingJobOf, valvingSettingsOf, type ValvingSettings } from '../../../core/valving';
-import { valvingCompare } from '../../../core/valving-compare';
-import type { ValvingFigures } from '../../../core/valving-evaluate';
+import type { BenchFit } from '../../../core/damper/bench-fit';
+import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../../core/safety/caution';
+import { InputError } from '../../../core/units/input-error';
+import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../../../core/setup/setup-sheet';
+import { valvingJobOf, valvingSettingsOf, type ValvingSettings } from '../../../core/valving/valving';
+import { valvingCompare } from '../../../core/valving/valving-compare';
+import type { ValvingFigures } from '../../../core/valving/valving-evaluate';
 import {
   valvingCurvesOf,
   valvingMapOf,
   type ValvingCurves,
   type ValvingRun,
-} from '../../../core/valving-map';
-import { VALVING_PRESET_NAMES, VALVING_PRESETS } from '../../../core/valving-presets';
-import { valvingBalanceOf, valvingRank } from '../../../core/valving-rank';
-import { VALVING_OBJECTIVE, VALVING_TARGET_KEYS, VALVING_TARGET_SPECS } from '../../../core/valving-targets';
+} from '../../../core/valving/valving-map';
+import { VALVING_PRESET_NAMES, VALVING_PRESETS } from '../../../core/valving/valving-presets';
+import { valvingBalanceOf, valvingRank } from '../../../core/valving/valving-rank';
+import {
+  VALVING_OBJECTIVE,
+  VALVING_TARGET_KEYS,
+  VALVING_TARGET_SPECS,
+} from '../../../core/valving/valving-targets';
 import { damperUnitResolve } from '../../../db/damper-units';
 import { benchRunListOfDamper } from '../../../db/queries/bench-run';
 import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';

@@ -1,6 +1,6 @@
-import { InputError } from '../../../core/input-error';
-import { CORNER_POSITIONS } from '../../../core/setup-sheet';
-import { nameFieldParse, nameKey, NOTES_MAX_LENGTH, textFieldParse } from '../../../core/text-field';
+import { InputError } from '../../../core/units/input-error';
+import { CORNER_POSITIONS } from '../../../core/setup/setup-sheet';
+import { nameFieldParse, nameKey, NOTES_MAX_LENGTH, textFieldParse } from '../../../core/units/text-field';
 import { setupCornersOf } from '../../../db/queries/setup-corner';
 import { setupRevisionLatest } from '../../../db/queries/setup-revision';
 import { vehicleByKey, vehicleInsert, vehicleList, vehicleListRowById } from '../../../db/queries/vehicle';

@@ -1,8 +1,8 @@
 import { parseArgs } from 'node:util';
-import { CAUTION_TEXT } from '../../../core/caution';
-import type { CornerAnalysis } from '../../../core/corner-analysis';
-import { InputError } from '../../../core/input-error';
-import { STEP_HEIGHT } from '../../../core/step-response';
+import { CAUTION_TEXT } from '../../../core/safety/caution';
+import type { CornerAnalysis } from '../../../core/figures/corner-analysis';
+import { InputError } from '../../../core/units/input-error';
+import { STEP_HEIGHT } from '../../../core/corner/step-response';
 import {
   numberFormat,
   quantityFormat,
@@ -10,7 +10,7 @@ import {
   quantityUnitLabel,
   type QuantityKind,
   type UnitSystem,
-} from '../../../core/units';
+} from '../../../core/units/units';
 import { analyzeCornerFile } from '../../api/handlers/analyze';
 import { eventMetricsLines } from '../event-report';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';

@@ -1,8 +1,8 @@
 import { parseArgs } from 'node:util';
-import { cornerFileParse } from '../../../core/corner-file';
-import { eventBump } from '../../../core/event';
-import { InputError } from '../../../core/input-error';
-import { eventSimulate } from '../../../core/simulate';
+import { cornerFileParse } from '../../../core/corner/corner-file';
+import { eventBump } from '../../../core/events/event';
+import { InputError } from '../../../core/units/input-error';
+import { eventSimulate } from '../../../core/events/simulate';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
 import { readJsonFile } from '../read-json-file';
 

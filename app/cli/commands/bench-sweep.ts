@@ -1,11 +1,11 @@
 import { fileURLToPath } from 'node:url';
-import { cornerFileParse } from '../../../core/corner-file';
-import { InputError } from '../../../core/input-error';
-import { valvingJobOf } from '../../../core/valving';
-import type { ValvingJob } from '../../../core/valving-evaluate';
-import type { ValvingCurveCell } from '../../../core/valving-map';
-import { VALVING_PRESETS } from '../../../core/valving-presets';
-import { valvingSweepSerial } from '../../../core/valving-sweep';
+import { cornerFileParse } from '../../../core/corner/corner-file';
+import { InputError } from '../../../core/units/input-error';
+import { valvingJobOf } from '../../../core/valving/valving';
+import type { ValvingJob } from '../../../core/valving/valving-evaluate';
+import type { ValvingCurveCell } from '../../../core/valving/valving-map';
+import { VALVING_PRESETS } from '../../../core/valving/valving-presets';
+import { valvingSweepSerial } from '../../../core/valving/valving-sweep';
 import { ValvingPool, valvingPoolDefaultThreads } from '../../api/valving-pool';
 import { EXIT_OK, type CliIo } from '../cli-io';
 import { commandArgsParse, helpShown } from '../command-args';

@@ -1,6 +1,6 @@
-import { InputError } from '../../../core/input-error';
-import { clickSettingsText } from '../../../core/click-settings';
-import { numberFormat, quantityFormat, type UnitSystem } from '../../../core/units';
+import { InputError } from '../../../core/units/input-error';
+import { clickSettingsText } from '../../../core/damper/click-settings';
+import { numberFormat, quantityFormat, type UnitSystem } from '../../../core/units/units';
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';

@@ -1,8 +1,8 @@
-import { clickSettingsText } from '../../../core/click-settings';
-import { numberFormat, type UnitSystem } from '../../../core/units';
-import type { ValvingHeadlineKey } from '../../../core/valving-rank';
-import { VALVING_HEADLINES } from '../../../core/valving-rank';
-import { ValvingSweepStopped } from '../../../core/valving-sweep';
+import { clickSettingsText } from '../../../core/damper/click-settings';
+import { numberFormat, type UnitSystem } from '../../../core/units/units';
+import type { ValvingHeadlineKey } from '../../../core/valving/valving-rank';
+import { VALVING_HEADLINES } from '../../../core/valving/valving-rank';
+import { ValvingSweepStopped } from '../../../core/valving/valving-sweep';
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';

@@ -1,6 +1,6 @@
-import { clickSettingsText } from '../../../core/click-settings';
-import { numberFormat, type UnitSystem } from '../../../core/units';
-import { VALVING_HEADLINE_KEYS, VALVING_HEADLINES } from '../../../core/valving-rank';
+import { clickSettingsText } from '../../../core/damper/click-settings';
+import { numberFormat, type UnitSystem } from '../../../core/units/units';
+import { VALVING_HEADLINE_KEYS, VALVING_HEADLINES } from '../../../core/valving/valving-rank';
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';

@@ -1,10 +1,10 @@
-import { setupChangeText } from '../../../core/setup-diff';
-import { CAUTION_TEXT } from '../../../core/caution';
-import { clickSettingsText } from '../../../core/click-settings';
-import { damperDirectionSlopes } from '../../../core/damper-curve';
-import { setupFileParse } from '../../../core/setup-file';
-import { CORNER_POSITIONS, type SetupCorner } from '../../../core/setup-sheet';
-import { numberFormat, quantityFormat, type UnitSystem } from '../../../core/units';
+import { setupChangeText } from '../../../core/setup/setup-diff';
+import { CAUTION_TEXT } from '../../../core/safety/caution';
+import { clickSettingsText } from '../../../core/damper/click-settings';
+import { damperDirectionSlopes } from '../../../core/damper/damper-curve';
+import { setupFileParse } from '../../../core/setup/setup-file';
+import { CORNER_POSITIONS, type SetupCorner } from '../../../core/setup/setup-sheet';
+import { numberFormat, quantityFormat, type UnitSystem } from '../../../core/units/units';
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';

@@ -1,7 +1,7 @@
 import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
-import { CAUTION_TEXT } from '../../../core/caution';
-import { cornerFileParse, type CornerFile } from '../../../core/corner-file';
+import { CAUTION_TEXT } from '../../../core/safety/caution';
+import { cornerFileParse, type CornerFile } from '../../../core/corner/corner-file';
 import {
   EVENT_DURATION,
   eventBump,
@@ -11,14 +11,14 @@ import {
   eventStep,
   type EventKind,
   type RoadEvent,
-} from '../../../core/event';
-import { eventWarnings } from '../../../core/event-warnings';
-import { InputError } from '../../../core/input-error';
-import type { SimulationHistory } from '../../../core/metrics';
-import { roadProfileIso8608, roadProfileMeasured } from '../../../core/road';
-import { ISO8608_CLASSES, type Iso8608Class } from '../../../core/random-road';
-import { eventSimulate } from '../../../core/simulate';
-import { quantityFormat, quantityParse, type QuantityKind } from '../../../core/units';
+} from '../../../core/events/event';
+import { eventWarnings } from '../../../core/events/event-warnings';
+import { InputError } from '../../../core/units/input-error';
+import type { SimulationHistory } from '../../../core/events/metrics';
+import { roadProfileIso8608, roadProfileMeasured } from '../../../core/events/road';
+import { ISO8608_CLASSES, type Iso8608Class } from '../../../core/corner/random-road';
+import { eventSimulate } from '../../../core/events/simulate';
+import { quantityFormat, quantityParse, type QuantityKind } from '../../../core/units/units';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
 import { eventMetricsLines } from '../event-report';
 import { readJsonFile } from '../read-json-file';

@@ -1,4 +1,4 @@
-import { CAUTION_TEXT } from '../../../core/caution';
+import { CAUTION_TEXT } from '../../../core/safety/caution';
 
 /** The short caution every analysis and comparison screen carries. */
 export function CautionLine() {

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
+import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
 
 /** One corner of the four, as a radio group. */
 export function CornerChoice(props: {

@@ -1,7 +1,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import type { CornerInput } from '../../../core/corner';
-import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
-import { quantityUnitLabel, type UnitSystem } from '../../../core/units';
+import type { CornerInput } from '../../../core/corner/corner';
+import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
+import { quantityUnitLabel, type UnitSystem } from '../../../core/units/units';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';

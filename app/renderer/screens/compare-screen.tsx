@@ -1,24 +1,24 @@
 import { useEffect, useId, useMemo, useState } from 'react';
-import { cornerQuarterCar } from '../../../core/corner';
-import { eventBump } from '../../../core/event';
-import { frequencyResponseGrid, frequencyResponseMagnitudeAt } from '../../../core/frequency-response';
-import { setupFileParse } from '../../../core/setup-file';
-import type { CornerPosition, SetupSheet } from '../../../core/setup-sheet';
-import { eventSimulate } from '../../../core/simulate';
+import { cornerQuarterCar } from '../../../core/corner/corner';
+import { eventBump } from '../../../core/events/event';
+import { frequencyResponseGrid, frequencyResponseMagnitudeAt } from '../../../core/corner/frequency-response';
+import { setupFileParse } from '../../../core/setup/setup-file';
+import type { CornerPosition, SetupSheet } from '../../../core/setup/setup-sheet';
+import { eventSimulate } from '../../../core/events/simulate';
 import {
   quantityFormat,
   quantityToDisplay,
   quantityUnitLabel,
   numberFormat,
   type UnitSystem,
-} from '../../../core/units';
-import { valvingHeadlineVerdict, type ValvingVerdict } from '../../../core/valving-compare';
+} from '../../../core/units/units';
+import { valvingHeadlineVerdict, type ValvingVerdict } from '../../../core/valving/valving-compare';
 import {
   VALVING_HEADLINE_KEYS,
   VALVING_HEADLINES,
   type ValvingHeadlineKey,
-} from '../../../core/valving-rank';
-import type { ValvingTargets } from '../../../core/valving-targets';
+} from '../../../core/valving/valving-rank';
+import type { ValvingTargets } from '../../../core/valving/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';

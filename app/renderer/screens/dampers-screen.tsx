@@ -1,9 +1,9 @@
-import { benchOffsetText } from '../../../core/bench-fit';
+import { benchOffsetText } from '../../../core/damper/bench-fit';
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { cornerSprungMass, cornerWheelRate, type CornerInput } from '../../../core/corner';
-import { InputError } from '../../../core/input-error';
-import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
-import { numberFormat, quantityFormat, quantityUnitLabel, type UnitSystem } from '../../../core/units';
+import { cornerSprungMass, cornerWheelRate, type CornerInput } from '../../../core/corner/corner';
+import { InputError } from '../../../core/units/input-error';
+import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
+import { numberFormat, quantityFormat, quantityUnitLabel, type UnitSystem } from '../../../core/units/units';
 import type { HandlerOutput } from '../../api/contract';
 import { analysisCornersOf } from '../analysis-model';
 import { ApiCallError, apiCall, apiJob } from '../api-client';

@@ -1,11 +1,11 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import { CAUTION_TEXT } from '../../../core/caution';
-import { cornerQuarterCar, cornerRideFigures, type CornerFigures } from '../../../core/corner';
-import { modesOf, type Modes } from '../../../core/modal';
-import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
-import { numberFormat, quantityFormat } from '../../../core/units';
-import { VALVING_FLAT_RIDE } from '../../../core/valving-rank';
-import { cornerWarnings, type ModelWarning } from '../../../core/warnings';
+import { CAUTION_TEXT } from '../../../core/safety/caution';
+import { cornerQuarterCar, cornerRideFigures, type CornerFigures } from '../../../core/corner/corner';
+import { modesOf, type Modes } from '../../../core/corner/modal';
+import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
+import { numberFormat, quantityFormat } from '../../../core/units/units';
+import { VALVING_FLAT_RIDE } from '../../../core/valving/valving-rank';
+import { cornerWarnings, type ModelWarning } from '../../../core/corner/warnings';
 import { apiCall } from '../api-client';
 import { useApp } from '../app-context';
 import { WarningList } from '../components/caution';

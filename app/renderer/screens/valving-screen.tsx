@@ -1,8 +1,8 @@
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
-import { CAUTION_TEXT } from '../../../core/caution';
-import type { ClickSettings } from '../../../core/click-settings';
-import { setupFileParse } from '../../../core/setup-file';
-import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
+import { CAUTION_TEXT } from '../../../core/safety/caution';
+import type { ClickSettings } from '../../../core/damper/click-settings';
+import { setupFileParse } from '../../../core/setup/setup-file';
+import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
 import {
   numberFormat,
   quantityFormat,
@@ -11,9 +11,9 @@ import {
   quantityUnitLabel,
   type QuantityKind,
   type UnitSystem,
-} from '../../../core/units';
-import { VALVING_HEADLINES } from '../../../core/valving-rank';
-import type { ValvingTargetKey } from '../../../core/valving-targets';
+} from '../../../core/units/units';
+import { VALVING_HEADLINES } from '../../../core/valving/valving-rank';
+import type { ValvingTargetKey } from '../../../core/valving/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall, apiJob, ApiCallError, type JobProgress } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';

@@ -1,4 +1,4 @@
-import { setupChangeText } from '../../../core/setup-diff';
+import { setupChangeText } from '../../../core/setup/setup-diff';
 import { useEffect, useState, type FormEvent } from 'react';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';

@@ -1,0 +1,375 @@
+import { InputError, inputFieldPath } from '../units/input-error';
+import { cubicHermiteAt, cubicHermiteThroughOrigin, type CubicHermite } from '../numeric/cubic-hermite';
+import { pointTableParse, pointTableToFile } from './point-table';
+import { quantityParse, quantityText, type UnitSystem } from '../units/units';
+
+/** One bench point of one direction: shaft speed and force as magnitudes (m/s, N). */
+export type DamperPoint = { velocity: number; force: number };
+
+/**
+ * Force–velocity curve of one damper direction, at the damper shaft, in SI.
+ * Forces and velocities are magnitudes here; `damperForce` applies the sign.
+ * - linear: F = c·v
+ * - bilinear: F = c_ls·v up to the knee, then c_ls·v_knee + c_hs·(v − v_knee)
+ *   (digressive when c_hs < c_ls, progressive when c_hs > c_ls)
+ * - table: bench points, speed rising and force never falling, joined through (0, 0) by a
+ *   monotone cubic (no overshoot between points) and continued as a straight line past the
+ *   last point. Treat the points as immutable: the interpolant is built once per table.
+ */
+export type DamperDirectionCurve =
+  | { kind: 'linear'; coefficient: number }
+  | { kind: 'bilinear'; lowSpeed: number; kneeSpeed: number; highSpeed: number }
+  | { kind: 'table'; points: readonly DamperPoint[] };
+
+/**
+ * A damper: bump (compression, shaft velocity > 0) and rebound (extension) curves, and the
+ * optional gas force (N, ≥ 0) with which the damper pushes its shaft out at rest.
+ */
+export type DamperCurve = { bump: DamperDirectionCurve; rebound: DamperDirectionCurve; gasForce?: number };
+
+/** The slopes that the linear figures use: low-speed and high-speed coefficients (N·s/m) and the knee (m/s). */
+export type DamperSlopes = { lowSpeed: number; highSpeed: number; kneeSpeed: number | null };
+
+/**
+ * Where a table's low-speed slope ends (m/s): the middle of the 25–75 mm/s band in which race
+ * dampers usually split low from high shaft speed (common practice).
+ */
+export const DAMPER_TABLE_LOW_SPEED_LIMIT = 0.05;
+
+/** The monotone cubic through (0, 0) and a table's points (Fritsch–Carlson; see cubic-hermite.ts). */
+export function damperTableInterpolant(points: readonly DamperPoint[]): CubicHermite {
+  return cubicHermiteThroughOrigin(
+    points,
+    (p) => p.velocity,
+    (p) => p.force,
+  );
+}
+
+/**
+ * Low- and high-speed slopes of one direction; a linear curve has one slope for both. For a
+ * table: the low-speed slope is the secant F(v)/v of the curve at DAMPER_TABLE_LOW_SPEED_LIMIT
+ * (or at the last point, when the data stop before it), the high-speed slope the secant from
+ * there to the last point, and that limit is reported as the knee.
+ */
+export function damperDirectionSlopes(d: DamperDirectionCurve): DamperSlopes {
+  switch (d.kind) {
+    case 'linear':
+      return { lowSpeed: d.coefficient, highSpeed: d.coefficient, kneeSpeed: null };
+    case 'bilinear':
+      return { lowSpeed: d.lowSpeed, highSpeed: d.highSpeed, kneeSpeed: d.kneeSpeed };
+    case 'table': {
+      const last = d.points[d.points.length - 1];
+      if (!last) return { lowSpeed: 0, highSpeed: 0, kneeSpeed: null };
+      const c = damperTableInterpolant(d.points);
+      const knee = Math.min(DAMPER_TABLE_LOW_SPEED_LIMIT, last.velocity);
+      const kneeForce = cubicHermiteAt(c, knee);
+      const lowSpeed = kneeForce / knee;
+      if (last.velocity <= knee) return { lowSpeed, highSpeed: lowSpeed, kneeSpeed: null };
+      return {
+        lowSpeed,
+        highSpeed: (last.force - kneeForce) / (last.velocity - knee),
+        kneeSpeed: knee,
+      };
+    }
+  }
+}
+
+/**
+ * The highest shaft speed (m/s) a direction's curve rests on data for: a table's last point;
+ * null for the linear and bilinear forms, which hold at any speed by definition.
+ */
+export function damperDirectionDataLimit(d: DamperDirectionCurve): number | null {
+  if (d.kind !== 'table') return null;
+  return d.points[d.points.length - 1]?.velocity ?? null;
+}
+
+/** Force magnitude (N) of one direction at shaft speed `speed` ≥ 0 (m/s). */
+export function damperDirectionForce(d: DamperDirectionCurve, speed: number): number {
+  switch (d.kind) {
+    case 'linear':
+      return d.coefficient * speed;
+    case 'bilinear':
+      return speed <= d.kneeSpeed
+        ? d.lowSpeed * speed
+        : d.lowSpeed * d.kneeSpeed + d.highSpeed * (speed - d.kneeSpeed);
+    case 'table':
+      return cubicHermiteAt(damperTableInterpolant(d.points), speed);
+  }
+}
+
+/**
+ * Damping force (N) at shaft velocity `v` (m/s), compression positive: positive in bump,
+ * negative in rebound, zero at rest. It resists the motion, so it pushes the body up in bump.
+ * The gas force is not included (see damperShaftForce).
+ */
+export function damperForce(curve: DamperCurve, v: number): number {
+  return v >= 0 ? damperDirectionForce(curve.bump, v) : -damperDirectionForce(curve.rebound, -v);
+}
+
+/**
+ * Total force on the shaft (N), compression positive, as a bench reads it: the damping force
+ * plus the gas force, which pushes the shaft out at every velocity. On the car the gas force is
+ * part of what holds the corner up at rest, so the event simulation, which works from static
+ * equilibrium, uses the damping force alone.
+ */
+export function damperShaftForce(curve: DamperCurve, v: number): number {
+  return damperForce(curve, v) + (curve.gasForce ?? 0);
+}
+
+function positiveDamping(raw: unknown, field: string): number {
+  const c = quantityParse(raw, 'damping', field);
+  if (!(c > 0)) throw new InputError(field, `must be greater than zero (got ${c} N·s/m)`);
+  return c;
+}
+
+/** What a damper table from a file must satisfy (DamperDirectionCurve, kind 'table'). */
+const DAMPER_TABLE_RULES = {
+  x: { kind: 'velocity', name: 'speed' },
+  y: { kind: 'force', name: 'force' },
+  positive: true,
+  nonDecreasing: true,
+  minPoints: 1,
+} as const;
+
+/**
+ * Reads one direction from a file: `{lowSpeed}` alone is linear; `{lowSpeed, kneeSpeed,
+ * highSpeed}` is bilinear; `{points: [[speed, force], …]}` is a table of bench points
+ * (magnitudes, speed rising, force never falling). Each value is a quantity with units.
+ * @throws InputError naming the field, or the offending point of a table.
+ */
+export function damperDirectionParse(raw: unknown, field: string): DamperDirectionCurve {
+  if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
+    throw new InputError(field, 'expected an object such as {"lowSpeed": "2500 N*s/m"}');
+  }
+  const o = raw as Record<string, unknown>;
+  const known = new Set(['lowSpeed', 'kneeSpeed', 'highSpeed', 'points']);
+  for (const key of Object.keys(o)) {
+    if (!known.has(key))
+      throw new InputError(
+        inputFieldPath(field, key),
+        'is not a damper field (lowSpeed, kneeSpeed, highSpeed, or points for a table)',
+      );
+  }
+  if (o.points !== undefined) {
+    const other = Object.keys(o).find((k) => k !== 'points');
+    if (other) {
+      throw new InputError(
+        inputFieldPath(field, other),
+        'cannot be given with points: a direction is either a table of points or slopes',
+      );
+    }
+    const pointsField = inputFieldPath(field, 'points');
+    const points = pointTableParse(o.points, pointsField, DAMPER_TABLE_RULES);
+    return { kind: 'table', points: points.map(([velocity, force]) => ({ velocity, force })) };
+  }
+  if (o.lowSpeed === undefined) throw new InputError(inputFieldPath(field, 'lowSpeed'), 'is missing');
+  const lowSpeed = positiveDamping(o.lowSpeed, inputFieldPath(field, 'lowSpeed'));
+  if (o.kneeSpeed === undefined && o.highSpeed === undefined)
+    return { kind: 'linear', coefficient: lowSpeed };
+  if (o.kneeSpeed === undefined) {
+    throw new InputError(
+      inputFieldPath(field, 'kneeSpeed'),
+      'is missing: a high-speed slope needs the knee velocity where it starts',
+    );
+  }
+  if (o.highSpeed === undefined) {
+    throw new InputError(
+      inputFieldPath(field, 'highSpeed'),
+      'is missing: a knee velocity needs the high-speed slope after it',
+    );
+  }
+  const kneeField = inputFieldPath(field, 'kneeSpeed');
+  const kneeSpeed = quantityParse(o.kneeSpeed, 'velocity', kneeField);
+  if (!(kneeSpeed > 0)) throw new InputError(kneeField, `must be greater than zero (got ${kneeSpeed} m/s)`);
+  const highSpeed = positiveDamping(o.highSpeed, inputFieldPath(field, 'highSpeed'));
+  return { kind: 'bilinear', lowSpeed, kneeSpeed, highSpeed };
+}
+
+/** Reads a damper `{bump, rebound, gasForce?}` from a file. */
+export function damperCurveParse(raw: unknown, field: string): DamperCurve {
+  if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
+    throw new InputError(field, 'expected an object with "bump" and "rebound"');
+  }
+  const o = raw as Record<string, unknown>;
+  for (const key of Object.keys(o)) {
+    if (key !== 'bump' && key !== 'rebound' && key !== 'gasForce') {
+      throw new InputError(inputFieldPath(field, key), 'is not a damper field (bump, rebound, gasForce)');
+    }
+  }
+  if (o.bump === undefined) throw new InputError(inputFieldPath(field, 'bump'), 'is missing');
+  if (o.rebound === undefined) throw new InputError(inputFieldPath(field, 'rebound'), 'is missing');
+  const curve: DamperCurve = {
+    bump: damperDirectionParse(o.bump, inputFieldPath(field, 'bump')),
+    rebound: damperDirectionParse(o.rebound, inputFieldPath(field, 'rebound')),
+  };
+  if (o.gasForce !== undefined) {
+    const gasField = inputFieldPath(field, 'gasForce');
+    const gas = quantityParse(o.gasForce, 'force', gasField);
+    if (!(gas >= 0)) throw new InputError(gasField, `must be zero or more (got ${gas} N)`);
+    curve.gasForce = gas;
+  }
+  return curve;
+}
+
+/** The file form of one direction, quantities as unit strings in `system`. */
+export function damperDirectionToFile(
+  d: DamperDirectionCurve,
+  system: UnitSystem = 'si',
+): Record<string, string> | { points: [string, string][] } {
+  switch (d.kind) {
+    case 'table':
+      return {
+        points: pointTableToFile(
+          d.points.map((p) => [p.velocity, p.force] as const),
+          { x: 'velocity', y: 'force' },
+          system,
+        ),
+      };
+    case 'linear':
+      return { lowSpeed: quantityText(d.coefficient, 'damping', system) };
+    case 'bilinear':
+      return {
+        lowSpeed: quantityText(d.lowSpeed, 'damping', system),
+        kneeSpeed: quantityText(d.kneeSpeed, 'velocity', system),
+        highSpeed: quantityText(d.highSpeed, 'damping', system),
+      };
+  }
+}
+
+/** The file form of a damper. */
+export function damperCurveToFile(curve: DamperCurve, system: UnitSystem = 'si'): Record<string, unknown> {
+  const file: Record<string, unknown> = {
+    bump: damperDirectionToFile(curve.bump, system),
+    rebound: damperDirectionToFile(curve.rebound, system),
+  };
+  if (curve.gasForce !== undefined) file.gasForce = quantityText(curve.gasForce, 'force', system);
+  return file;
+}
+
+/** A bilinear fit of bench points with its residual. */
+export type DamperDirectionFit = {
+  curve: Extract<DamperDirectionCurve, { kind: 'bilinear' }>;
+  /** RMS of force residuals (N). */
+  rmsResidual: number;
+  points: number;
+};
+
+/** Least squares of F = c_ls·min(v, vk) + c_hs·max(v − vk, 0) for a fixed knee vk: 2×2 normal equations. */
+function bilinearAtKnee(
+  points: readonly DamperPoint[],
+  knee: number,
+): { low: number; high: number; sse: number } {
+  let s11 = 0;
+  let s12 = 0;
+  let s22 = 0;
+  let b1 = 0;
+  let b2 = 0;
+  for (const p of points) {
+    const x1 = Math.min(p.velocity, knee);
+    const x2 = Math.max(p.velocity - knee, 0);
+    s11 += x1 * x1;
+    s12 += x1 * x2;
+    s22 += x2 * x2;
+    b1 += x1 * p.force;
+    b2 += x2 * p.force;
+  }
+  const det = s11 * s22 - s12 * s12;
+  let low: number;
+  let high: number;
+  if (s22 === 0 || Math.abs(det) <= 1e-14 * s11 * s22) {
+    // No point past the knee: one slope.
+    low = b1 / s11;
+    high = low;
+  } else {
+    low = (b1 * s22 - b2 * s12) / det;
+    high = (s11 * b2 - s12 * b1) / det;
+  }
+  let sse = 0;
+  for (const p of points) {
+    const r = low * Math.min(p.velocity, knee) + high * Math.max(p.velocity - knee, 0) - p.force;
+    sse += r * r;
+  }
+  return { low, high, sse };
+}
+
+/**
+ * Fits the bilinear (knee) form to one direction's bench points by least squares through
+ * zero force at zero speed: for each trial knee the two slopes are linear least squares; the
+ * knee is found by a scan over the points' speeds and a golden-section refinement.
+ * @throws InputError when fewer than 3 points have positive speed.
+ */
+export function damperDirectionFit(points: readonly DamperPoint[], field = 'points'): DamperDirectionFit {
+  const usable = points.filter(
+    (p) => p.velocity > 0 && Number.isFinite(p.velocity) && Number.isFinite(p.force),
+  );
+  if (usable.length < 3) {
+    throw new InputError(
+      field,
+      `needs at least 3 points with non-zero shaft speed to fit a curve (got ${usable.length})`,
+    );
+  }
+  const speeds = [...new Set(usable.map((p) => p.velocity))].sort((a, b) => a - b);
+  const vMin = speeds[0] as number;
+  const vMax = speeds[speeds.length - 1] as number;
+  // Candidate knees: every measured speed but the extremes, and a grid between them.
+  const candidates = new Set<number>(speeds.slice(1, -1));
+  for (let i = 1; i < 64; i++) candidates.add(vMin + ((vMax - vMin) * i) / 64);
+  let bestKnee = vMax;
+  let best = bilinearAtKnee(usable, vMax);
+  for (const knee of candidates) {
+    const fit = bilinearAtKnee(usable, knee);
+    if (fit.sse < best.sse) {
+      best = fit;
+      bestKnee = knee;
+    }
+  }
+  // Refine between the neighbouring candidates around the best one.
+  const sorted = [...candidates, vMax].sort((a, b) => a - b);
+  const i = sorted.indexOf(bestKnee);
+  let lo = sorted[Math.max(0, i - 1)] ?? vMin;
+  let hi = sorted[Math.min(sorted.length - 1, i + 1)] ?? vMax;
+  const g = (Math.sqrt(5) - 1) / 2;
+  for (let iter = 0; iter < 60 && hi - lo > 1e-9 * vMax; iter++) {
+    const x1 = hi - g * (hi - lo);
+    const x2 = lo + g * (hi - lo);
+    if (bilinearAtKnee(usable, x1).sse < bilinearAtKnee(usable, x2).sse) hi = x2;
+    else lo = x1;
+  }
+  const refinedKnee = (lo + hi) / 2;
+  const refined = bilinearAtKnee(usable, refinedKnee);
+  if (refined.sse < best.sse) {
+    best = refined;
+    bestKnee = refinedKnee;
+  }
+  return {
+    curve: { kind: 'bilinear', lowSpeed: best.low, kneeSpeed: bestKnee, highSpeed: best.high },
+    rmsResidual: Math.sqrt(best.sse / usable.length),
+    points: usable.length,
+  };
+}
+
+/**
+ * Fits both directions from signed bench points (velocity and force compression-positive,
+ * as `damperShaftForce` returns them): positive speeds are bump, negative rebound. When the
+ * points include the damper's gas force, pass it in `options.gasForce` (N) and it is taken
+ * off every point before the fit, so that the curves pass through zero.
+ */
+export function damperCurveFit(
+  points: readonly DamperPoint[],
+  options: { gasForce?: number } = {},
+): {
+  bump: DamperDirectionFit;
+  rebound: DamperDirectionFit;
+} {
+  const gas = options.gasForce ?? 0;
+  const bump = points
+    .filter((p) => p.velocity > 0)
+    .map((p) => ({ velocity: p.velocity, force: p.force - gas }));
+  const rebound = points
+    .filter((p) => p.velocity < 0)
+    .map((p) => ({ velocity: -p.velocity, force: gas - p.force }));
+  return {
+    bump: damperDirectionFit(bump, 'bump points'),
+    rebound: damperDirectionFit(rebound, 'rebound points'),
+  };
+}

@@ -1,0 +1,273 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { cubicHermiteAt, cubicHermiteMonotone } from '../../../core/numeric/cubic-hermite';
+import {
+  DAMPER_TABLE_LOW_SPEED_LIMIT,
+  damperCurveFit,
+  damperCurveParse,
+  damperCurveToFile,
+  damperDirectionDataLimit,
+  damperDirectionFit,
+  damperDirectionForce,
+  damperDirectionParse,
+  damperDirectionSlopes,
+  damperDirectionToFile,
+  damperForce,
+  damperShaftForce,
+  type DamperDirectionCurve,
+  type DamperPoint,
+} from '../../../core/damper/damper-curve';
+import { seededRandom } from '../../../core/numeric/seeded-random';
+
+/** Invented bench points of a digressive bump valving (Millbrook demo data). */
+const BENCH: DamperDirectionCurve = {
+  kind: 'table',
+  points: [
+    { velocity: 0.025, force: 150 },
+    { velocity: 0.05, force: 280 },
+    { velocity: 0.1, force: 400 },
+    { velocity: 0.3, force: 620 },
+    { velocity: 0.6, force: 850 },
+  ],
+};
+
+describe('monotone cubic (Fritsch–Carlson)', () => {
+  it('uses the weighted harmonic mean of the neighbouring secants as a knot slope', () => {
+    // (0,0), (1,1), (2,4): secants 1 and 3, equal cells → harmonic mean 2·1·3/(1+3) = 1.5 [calc]
+    const c = cubicHermiteMonotone([0, 1, 2], [0, 1, 4]);
+    expect(c.slope[1]).toBeCloseTo(1.5, 15);
+    // ends take the end secants, so the straight continuation joins smoothly
+    expect(c.slope[0]).toBe(1);
+    expect(c.slope[2]).toBe(3);
+    expect(cubicHermiteAt(c, 3)).toBe(7);
+    expect(cubicHermiteAt(c, 2.5, 1)).toBe(3);
+    expect(cubicHermiteAt(c, -1)).toBe(-1);
+  });
+
+  it('puts a zero slope at a local extremum, so the curve never overshoots it', () => {
+    const c = cubicHermiteMonotone([0, 1, 2, 3], [0, 2, 1, 1]);
+    expect(c.slope[1]).toBe(0);
+    expect(c.slope[2]).toBe(0);
+    for (let x = 0; x <= 3; x += 0.01) expect(cubicHermiteAt(c, x)).toBeLessThanOrEqual(2 + 1e-15);
+    for (let x = 2; x <= 3; x += 0.01) expect(cubicHermiteAt(c, x)).toBeCloseTo(1, 15);
+  });
+
+  it('is monotone between any monotone points, and stays between neighbouring values (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.tuple(
+            fc.double({ min: 1e-4, max: 1, noNaN: true }),
+            fc.double({ min: 0, max: 5000, noNaN: true }),
+          ),
+          {
+            minLength: 1,
+            maxLength: 12,
+          },
+        ),
+        (steps) => {
+          // Rising speeds and never-falling forces, as a damper table must be.
+          const v: number[] = [0];
+          const f: number[] = [0];
+          for (const [dv, df] of steps) {
+            v.push((v[v.length - 1] as number) + dv);
+            f.push((f[f.length - 1] as number) + df);
+          }
+          const c = cubicHermiteMonotone(v, f);
+          for (let i = 0; i + 1 < v.length; i++) {
+            let last = -Infinity;
+            for (let k = 0; k <= 20; k++) {
+              const x = (v[i] as number) + (((v[i + 1] as number) - (v[i] as number)) * k) / 20;
+              const y = cubicHermiteAt(c, x);
+              const tol = 1e-9 * Math.max(1, f[f.length - 1] as number);
+              expect(y).toBeGreaterThanOrEqual(last - tol);
+              expect(y).toBeGreaterThanOrEqual((f[i] as number) - tol);
+              expect(y).toBeLessThanOrEqual((f[i + 1] as number) + tol);
+              last = y;
+            }
+          }
+        },
+      ),
+      { numRuns: 300, seed: 8608 },
+    );
+  });
+});
+
+describe('tabulated damper direction', () => {
+  it('passes through zero and every bench point, and continues past the last in a straight line', () => {
+    expect(damperDirectionForce(BENCH, 0)).toBe(0);
+    for (const p of (BENCH as { points: readonly DamperPoint[] }).points) {
+      expect(damperDirectionForce(BENCH, p.velocity)).toBeCloseTo(p.force, 10);
+    }
+    // Past 0.6 m/s the slope of the last segment: (850 − 620)/0.3 = 766.7 N·s/m [calc]
+    const slope = (850 - 620) / 0.3;
+    expect(damperDirectionForce(BENCH, 1)).toBeCloseTo(850 + 0.4 * slope, 9);
+    expect(damperDirectionDataLimit(BENCH)).toBe(0.6);
+    expect(damperDirectionDataLimit({ kind: 'linear', coefficient: 1000 })).toBeNull();
+  });
+
+  it('gives the linear figures a low-speed slope to 0.05 m/s and a high-speed slope beyond', () => {
+    const s = damperDirectionSlopes(BENCH);
+    expect(DAMPER_TABLE_LOW_SPEED_LIMIT).toBe(0.05);
+    // [calc] F(0.05) = 280 N → 5600 N·s/m; (850 − 280)/(0.6 − 0.05) = 1036.4 N·s/m
+    expect(s.lowSpeed).toBeCloseTo(5600, 9);
+    expect(s.highSpeed).toBeCloseTo(570 / 0.55, 9);
+    expect(s.kneeSpeed).toBe(0.05);
+    // Data that stop before the limit give one slope, the secant to the last point.
+    const short = damperDirectionSlopes({ kind: 'table', points: [{ velocity: 0.03, force: 90 }] });
+    expect(short).toEqual({ lowSpeed: 3000, highSpeed: 3000, kneeSpeed: null });
+  });
+
+  it('signs the force by direction and adds the gas force only to the shaft force', () => {
+    const curve = { bump: BENCH, rebound: { kind: 'linear', coefficient: 4000 } as const, gasForce: 180 };
+    expect(damperForce(curve, 0.1)).toBeCloseTo(400, 10);
+    expect(damperForce(curve, -0.1)).toBeCloseTo(-400, 10);
+    expect(damperForce(curve, 0)).toBe(0);
+    expect(damperShaftForce(curve, 0)).toBe(180);
+    expect(damperShaftForce(curve, -0.1)).toBeCloseTo(-220, 10);
+  });
+
+  it('reads tables with units or SI numbers and writes them back the same', () => {
+    const d = damperDirectionParse(
+      {
+        points: [
+          ['1 in/s', '30 lbf'],
+          [0.1, 400],
+        ],
+      },
+      'bump',
+    );
+    expect(d.kind).toBe('table');
+    const points = (d as { points: readonly DamperPoint[] }).points;
+    expect(points[0]?.velocity).toBeCloseTo(0.0254, 12);
+    expect(points[0]?.force).toBeCloseTo(133.4466, 3);
+    const curve = damperCurveParse(
+      {
+        bump: {
+          points: [
+            [0.05, 280],
+            [0.2, 500],
+          ],
+        },
+        rebound: { lowSpeed: 4000 },
+        gasForce: '40 lbf',
+      },
+      'damper',
+    );
+    expect(curve.gasForce).toBeCloseTo(177.929, 2);
+    const again = damperCurveParse(damperCurveToFile(curve), 'damper');
+    expect(again.bump).toEqual(curve.bump);
+    expect(again.gasForce).toBeCloseTo(curve.gasForce as number, 9);
+    for (const system of ['si', 'us'] as const) {
+      const back = damperDirectionParse(damperDirectionToFile(BENCH, system), 'bump') as {
+        points: readonly DamperPoint[];
+      };
+      back.points.forEach((p, i) => {
+        const q = (BENCH as { points: readonly DamperPoint[] }).points[i] as DamperPoint;
+        expect(p.velocity / q.velocity).toBeCloseTo(1, 9);
+        expect(p.force / q.force).toBeCloseTo(1, 9);
+      });
+    }
+  });
+
+  it('rejects non-monotone and sign-inconsistent tables, naming the point', () => {
+    const bad = (points: unknown, re: RegExp) =>
+      expect(() => damperDirectionParse({ points }, 'corner.damper.rebound')).toThrow(re);
+    bad(
+      [
+        [0.05, 420],
+        [0.1, 380],
+      ],
+      /corner\.damper\.rebound\.points\[1\]: force 380 N is below the previous point's 420 N/,
+    );
+    bad(
+      [
+        [0.05, 420],
+        [-0.1, 600],
+      ],
+      /points\[1\]: speed must be above zero .*magnitudes/,
+    );
+    bad([[0.05, -420]], /points\[0\]: force must be above zero/);
+    bad(
+      [
+        [0.1, 420],
+        [0.05, 600],
+      ],
+      /points\[1\]: speed 0\.05 m\/s is not above the previous point's 0\.1 m\/s/,
+    );
+    bad(
+      [
+        [0.1, 420],
+        [0.1, 600],
+      ],
+      /points\[1\]: speed 0\.1 m\/s is not above/,
+    );
+    bad([], /points: has 0 points; needs at least 1/);
+    bad('fast', /points: expected a list/);
+    bad([[0.1]], /points\[0\]: expected a \[speed, force\] pair/);
+    bad([['0.1 N', 400]], /points\[0\]: got "0\.1 N" \(a force\); expected a velocity/);
+    bad([[NaN, 400]], /points\[0\]: got NaN/);
+    expect(() => damperDirectionParse({ points: [[0.1, 400]], lowSpeed: 3000 }, 'bump')).toThrow(
+      /bump\.lowSpeed: cannot be given with points/,
+    );
+    expect(() =>
+      damperCurveParse({ bump: { lowSpeed: 1 }, rebound: { lowSpeed: 1 }, gasForce: -5 }, 'damper'),
+    ).toThrow(/damper\.gasForce: must be zero or more/);
+  });
+
+  it('reads a huge bench sweep and still interpolates it', () => {
+    const points = Array.from({ length: 20_000 }, (_, i) => [
+      (i + 1) * 1e-4,
+      3000 * (i + 1) * 1e-4 + 1e-3 * i,
+    ]);
+    const d = damperDirectionParse({ points }, 'bump');
+    expect(damperDirectionForce(d, 1.00005)).toBeCloseTo(3000 * 1.00005 + 1e-3 * 9999.5, 6);
+  });
+});
+
+describe('bilinear fit of bench points', () => {
+  /** A bench sweep of a known bilinear curve with Gaussian force noise (seeded). */
+  function sweep(low: number, knee: number, high: number, sigma: number, seed: number): DamperPoint[] {
+    const next = seededRandom(seed);
+    const gauss = () => Math.sqrt(-2 * Math.log(1 - next())) * Math.cos(2 * Math.PI * next());
+    const curve = { kind: 'bilinear', lowSpeed: low, kneeSpeed: knee, highSpeed: high } as const;
+    return Array.from({ length: 40 }, (_, i) => {
+      const v = 0.01 + (0.5 * i) / 39;
+      return { velocity: v, force: damperDirectionForce(curve, v) + sigma * gauss() };
+    });
+  }
+
+  it('recovers the slopes and the knee from noisy synthetic points, with the noise as residual', () => {
+    for (const [low, knee, high, seed] of [
+      [5000, 0.06, 1200, 1],
+      [3000, 0.1, 1800, 2],
+      [1500, 0.08, 2500, 3], // progressive
+    ] as const) {
+      const sigma = 8;
+      const fit = damperDirectionFit(sweep(low, knee, high, sigma, seed));
+      expect(fit.curve.lowSpeed / low).toBeCloseTo(1, 1);
+      expect(Math.abs(fit.curve.lowSpeed / low - 1)).toBeLessThan(0.05);
+      expect(Math.abs(fit.curve.highSpeed / high - 1)).toBeLessThan(0.03);
+      expect(Math.abs(fit.curve.kneeSpeed / knee - 1)).toBeLessThan(0.1);
+      // the residual is the noise left over (σ, less the fitted parameters' share)
+      expect(fit.rmsResidual).toBeGreaterThan(0.6 * sigma);
+      expect(fit.rmsResidual).toBeLessThan(1.3 * sigma);
+      expect(fit.points).toBe(40);
+    }
+  });
+
+  it('fits both directions from signed points, taking off the gas force when it is given', () => {
+    const gas = 150;
+    const bump = sweep(4000, 0.08, 1000, 0, 4);
+    const rebound = sweep(7000, 0.08, 2000, 0, 5);
+    const signed = [
+      ...bump.map((p) => ({ velocity: p.velocity, force: p.force + gas })),
+      ...rebound.map((p) => ({ velocity: -p.velocity, force: -p.force + gas })),
+    ];
+    const fit = damperCurveFit(signed, { gasForce: gas });
+    expect(fit.bump.curve.lowSpeed).toBeCloseTo(4000, 3);
+    expect(fit.rebound.curve.highSpeed).toBeCloseTo(2000, 3);
+    expect(fit.rebound.rmsResidual).toBeLessThan(1e-6);
+    expect(() => damperDirectionFit([{ velocity: 0.1, force: 100 }])).toThrow(/at least 3 points/);
+  });
+});
