@@ -1,0 +1,52 @@
+import { readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { tempFolder } from '../db/store-fixture';
+import { cli, fileDigest } from './cli-fixture';
+
+const COUPE = 'Millbrook coupe #27';
+
+/** The demo shop in a fresh database, and its coupe exported as a bundle. */
+async function demoExported(): Promise<{ dir: string; db: string; bundle: Record<string, unknown> }> {
+  const dir = tempFolder();
+  const db = join(dir, 'shop.sqlite');
+  expect((await cli('--db', db, 'demo')).code).toBe(0);
+  const file = join(dir, 'coupe.json');
+  expect((await cli('--db', db, 'export', COUPE, '--out', file)).code).toBe(0);
+  return { dir, db, bundle: JSON.parse(readFileSync(file, 'utf8')) as Record<string, unknown> };
+}
+
+describe('rideledger import checks every record of a bundle', () => {
+  it('refuses a revision name with a terminal escape: exit 2, the field named, nothing stored', async () => {
+    const { dir, bundle } = await demoExported();
+    const revisions = bundle.revisions as { name: string }[];
+    revisions[1]!.name = 'Wet\u001b[2J';
+    const file = join(dir, 'crafted.json');
+    writeFileSync(file, JSON.stringify(bundle));
+    const target = join(dir, 'other.sqlite');
+    expect((await cli('--db', target, 'vehicle', 'add', 'Other car')).code).toBe(0);
+    const before = fileDigest(target);
+    const out = await cli('--db', target, 'import', file, '--as', 'Copy');
+    expect(out.code).toBe(2);
+    expect(out.stderr).toMatch(/revisions\[1\]\.name: contains a control character/);
+    // The message itself carries no escape to the terminal.
+    expect(out.stderr).not.toContain('\u001b');
+    expect(fileDigest(target)).toBe(before);
+  });
+
+  it('refuses revision number 2^53 − 1 through the command, and the database stays whole', async () => {
+    const { dir, bundle } = await demoExported();
+    const revisions = bundle.revisions as { number: number }[];
+    revisions[revisions.length - 1]!.number = Number.MAX_SAFE_INTEGER;
+    const file = join(dir, 'crafted.json');
+    writeFileSync(file, JSON.stringify(bundle));
+    const target = join(dir, 'other.sqlite');
+    expect((await cli('--db', target, 'vehicle', 'add', 'Other car')).code).toBe(0);
+    const before = fileDigest(target);
+    const out = await cli('--db', target, 'import', file);
+    expect(out.code).toBe(2);
+    expect(out.stderr).toMatch(/revisions\[\d+\]\.number: got 9007199254740991/);
+    expect(fileDigest(target)).toBe(before);
+    expect((await cli('--db', target, 'check')).code).toBe(0);
+  });
+});
