@@ -1,4 +1,4 @@
-import { benchFit, type BenchFit } from '../core/bench-fit';
+import { benchFit } from '../core/bench-fit';
 import { calendarDateParse, timestampParse } from '../core/calendar-date';
 import { canonicalJson } from '../core/canonical-json';
 import { clickSettingsParse, type ClickSettings } from '../core/click-settings';
@@ -15,7 +15,8 @@ import { cornerStoredCheck } from './corner-stored';
 import { benchRunInsert, benchRunRowsOfDamper, type BenchRunInsert } from './queries/bench-run';
 import { damperUnitByKey, damperUnitInsert, damperUnitsOfVehicle } from './queries/damper-unit';
 import { setupCornerInsert, setupCornersOf } from './queries/setup-corner';
-import { setupRevisionInsert, setupRevisionList } from './queries/setup-revision';
+import type Database from 'better-sqlite3';
+import { setupRevisionInsert, setupRevisionList, type SetupRevisionListRow } from './queries/setup-revision';
 import { storeEventInsert } from './queries/store-event';
 import { vehicleByKey, vehicleInsert } from './queries/vehicle';
 import type { BenchRunRow } from './rows';
@@ -104,7 +105,8 @@ export type Bundle = {
   dampers: BundleDamper[];
 };
 
-function benchRunToBundle(r: BenchRunRow): BundleBenchRun {
+/** A bench run row in bundle form. */
+export function benchRunToBundle(r: BenchRunRow): BundleBenchRun {
   return {
     date: r.run_date,
     clicks: clickSettingsOfColumns(r),
@@ -126,43 +128,46 @@ function benchRunToBundle(r: BenchRunRow): BundleBenchRun {
   };
 }
 
+/** A revision row (with its parent's number) and its corners in bundle form. */
+export function bundleRevisionOf(db: Database.Database, r: SetupRevisionListRow): BundleRevision {
+  const corners = {} as Record<CornerPosition, BundleCorner>;
+  for (const c of setupCornersOf(db, r.id)) {
+    corners[c.position] = {
+      analysis: JSON.parse(c.analysis_json) as Record<string, unknown>,
+      damperUnit: c.damper_label,
+      clicks: clickSettingsOfColumns(c),
+      springLabel: c.spring_label,
+      rideHeight: c.ride_height,
+      tirePressureCold: c.tire_pressure_cold,
+      camber: c.camber,
+      toe: c.toe !== null && c.toe_kind !== null ? { kind: c.toe_kind, value: c.toe } : null,
+      notes: c.notes,
+    };
+  }
+  return {
+    number: r.number,
+    parent: r.parent_number,
+    name: r.name,
+    event: r.event,
+    track: r.track,
+    driver: r.driver,
+    date: r.setup_date,
+    fuelLoad: r.fuel_load,
+    antiRollBar: { front: r.anti_roll_bar_front, rear: r.anti_roll_bar_rear },
+    notes: r.notes,
+    summary: r.summary,
+    savedAt: r.saved_at,
+    corners,
+  };
+}
+
 /** The bundle of one vehicle (by name or id). */
 export function bundleExport(store: Store, vehicleRef: string | number): Bundle {
   const db = store.db;
   // One read transaction: a save by the other program meanwhile is either wholly in or out.
   return db.transaction(() => {
     const v = vehicleResolve(db, vehicleRef);
-    const revisions = setupRevisionList(db, v.id).map((r): BundleRevision => {
-      const corners = {} as Record<CornerPosition, BundleCorner>;
-      for (const c of setupCornersOf(db, r.id)) {
-        corners[c.position] = {
-          analysis: JSON.parse(c.analysis_json) as Record<string, unknown>,
-          damperUnit: c.damper_label,
-          clicks: clickSettingsOfColumns(c),
-          springLabel: c.spring_label,
-          rideHeight: c.ride_height,
-          tirePressureCold: c.tire_pressure_cold,
-          camber: c.camber,
-          toe: c.toe !== null && c.toe_kind !== null ? { kind: c.toe_kind, value: c.toe } : null,
-          notes: c.notes,
-        };
-      }
-      return {
-        number: r.number,
-        parent: r.parent_number,
-        name: r.name,
-        event: r.event,
-        track: r.track,
-        driver: r.driver,
-        date: r.setup_date,
-        fuelLoad: r.fuel_load,
-        antiRollBar: { front: r.anti_roll_bar_front, rear: r.anti_roll_bar_rear },
-        notes: r.notes,
-        summary: r.summary,
-        savedAt: r.saved_at,
-        corners,
-      };
-    });
+    const revisions = setupRevisionList(db, v.id).map((r) => bundleRevisionOf(db, r));
     const dampers = damperUnitsOfVehicle(db, v.id).map((d): BundleDamper => ({
       label: d.label,
       kind: d.kind,
@@ -241,10 +246,10 @@ const RUN_KEYS = [
 ] as const;
 
 /** The summary of a revision without a parent, as `setupSave` writes it. */
-const FIRST_SETUP_SUMMARY = 'first setup';
+export const FIRST_SETUP_SUMMARY = 'first setup';
 
 /** A revision of a bundle, checked as a setup file is: its sheet (SI), number, parent and time saved. */
-type CheckedRevision = {
+export type CheckedRevision = {
   number: number;
   parent: number | null;
   sheet: SetupSheet;
@@ -253,7 +258,7 @@ type CheckedRevision = {
 };
 
 /** A bench run of a bundle, checked, with its fit recomputed from its points. */
-type CheckedRun = Omit<BenchRunInsert, 'damper_unit_id'>;
+export type CheckedRun = Omit<BenchRunInsert, 'damper_unit_id'>;
 
 type CheckedDamper = {
   label: string;
@@ -276,9 +281,17 @@ function listParse(raw: unknown, field: string): unknown[] {
 }
 
 function blobOf(base64: unknown, field: string): Buffer {
-  if (typeof base64 !== 'string' || !/^[A-Za-z0-9+/]*={0,2}$/.test(base64) || base64.length % 4 !== 0)
-    throw new InputError(field, 'is not base64 data');
-  return Buffer.from(base64, 'base64');
+  // Base64 as Node writes it: decoding and encoding again gives the same text (a regular
+  // expression over megabytes of it is slow).
+  const blob = typeof base64 === 'string' ? Buffer.from(base64, 'base64') : undefined;
+  if (!blob || blob.toString('base64') !== base64) throw new InputError(field, 'is not base64 data');
+  return blob;
+}
+
+function finiteCheck(values: Float64Array, field: string): void {
+  for (const v of values)
+    if (!Number.isFinite(v))
+      throw new InputError(field, 'holds a value that is not a finite number: the data are damaged');
 }
 
 function countParse(raw: unknown, field: string): number {
@@ -327,7 +340,7 @@ function bundleFieldOfSetupField(field: string): string {
  * runs — so that texts, lengths, clicks, dates and quantities meet the same rules; the
  * corner inputs and toe keep their SI numbers bit for bit.
  */
-function revisionChecked(raw: unknown, at: string, count: number): CheckedRevision {
+export function bundleRevisionChecked(raw: unknown, at: string, count: number): CheckedRevision {
   const r = objectParse(raw, at, REVISION_KEYS);
   const f = (k: string) => inputFieldPath(at, k);
   const number = r.number;
@@ -415,9 +428,17 @@ function revisionChecked(raw: unknown, at: string, count: number): CheckedRevisi
 /**
  * One bench run of a bundle, checked as a bench import checks its run: the points whole
  * (count, checksum, finite numbers), the run's fields by the same rules, and the fit
- * recomputed from the points — the bundle's own fit is never stored.
+ * recomputed from the points — the bundle's own fit is never stored. `options.fits` keeps
+ * the fit (canonical JSON) of points already fitted, by their checksum, for the runs checked
+ * next; `options.stored` gives a stored run's blobs, already checked against their count and
+ * checksum, in place of the base64 of a bundle.
  */
-function runChecked(raw: unknown, at: string): CheckedRun {
+export function bundleRunChecked(
+  raw: unknown,
+  at: string,
+  options: { fits?: Map<string, string>; stored?: { points: Buffer; trace: Buffer | null } } = {},
+): CheckedRun {
+  const fits = options.fits ?? new Map<string, string>();
   const r = objectParse(raw, at, RUN_KEYS);
   const f = (k: string) => inputFieldPath(at, k);
   const quantity = (
@@ -432,12 +453,16 @@ function runChecked(raw: unknown, at: string): CheckedRun {
     );
   const pointCount = countParse(r.pointCount, f('pointCount'));
   const pointsSha256 = checksumParse(r.pointsSha256, f('pointsSha256'));
-  const points = blobOf(r.points, f('points'));
-  if (points.length !== 16 * pointCount || sha256Hex(points) !== pointsSha256)
+  const points = options.stored?.points ?? blobOf(r.points, f('points'));
+  if (!options.stored && (points.length !== 16 * pointCount || sha256Hex(points) !== pointsSha256))
     throw new InputError(f('points'), 'does not match its point count and checksum: the bundle is damaged');
   const traceCount =
     r.traceCount === null || r.traceCount === undefined ? null : countParse(r.traceCount, f('traceCount'));
-  const trace = r.trace === null || r.trace === undefined ? null : blobOf(r.trace, f('trace'));
+  const trace = options.stored
+    ? options.stored.trace
+    : r.trace === null || r.trace === undefined
+      ? null
+      : blobOf(r.trace, f('trace'));
   if ((trace === null) !== (traceCount === null) || (trace && trace.length !== 24 * (traceCount ?? 0)))
     throw new InputError(f('trace'), 'does not match its sample count: the bundle is damaged');
   if ((trace !== null) !== (r.sourceKind === 'trace'))
@@ -445,17 +470,21 @@ function runChecked(raw: unknown, at: string): CheckedRun {
       f('trace'),
       `a run read from ${r.sourceKind === 'trace' ? 'a trace keeps it' : 'points has none'}`,
     );
-  for (const [blob, what] of [
-    [points, 'points'],
-    [trace, 'trace'],
-  ] as const) {
-    if (!blob) continue;
-    for (let i = 0; i + 8 <= blob.length; i += 8)
-      if (!Number.isFinite(blob.readDoubleLE(i)))
-        throw new InputError(f(what), 'holds a value that is not a finite number: the bundle is damaged');
+  if (trace) {
+    const samples = new Float64Array(trace.length / 8);
+    for (let i = 0; i < samples.length; i++) samples[i] = trace.readDoubleLE(8 * i);
+    finiteCheck(samples, f('trace'));
   }
   fitShapeCheck(r.fit, f('fit'));
-  const fit: BenchFit = benchFit(benchPointsDecode(points), f('points'));
+  // The same points (by their checked checksum) give the same fit: a run imported again is fitted once.
+  let fitJson = fits.get(pointsSha256);
+  if (fitJson === undefined) {
+    const decoded = benchPointsDecode(points);
+    finiteCheck(decoded.velocity, f('points'));
+    finiteCheck(decoded.force, f('points'));
+    fitJson = canonicalJson(benchFit(decoded, f('points')));
+    fits.set(pointsSha256, fitJson);
+  }
   return {
     run_date: r.date === null || r.date === undefined ? null : calendarDateParse(r.date, f('date')),
     ...clickColumnsOf(clickSettingsParse(r.clicks, f('clicks'))),
@@ -471,16 +500,22 @@ function runChecked(raw: unknown, at: string): CheckedRun {
     points_sha256: pointsSha256,
     trace_count: traceCount,
     trace,
-    fit_json: canonicalJson(fit),
+    fit_json: fitJson,
     notes: textFieldParse(r.notes, f('notes'), { maxLength: NOTES_MAX_LENGTH, multiline: true }),
     imported_at: timestampParse(r.importedAt, f('importedAt')),
   };
 }
 
-function damperChecked(raw: unknown, at: string): CheckedDamper {
+export function bundleDamperChecked(
+  raw: unknown,
+  at: string,
+  fits = new Map<string, string>(),
+): CheckedDamper {
   const d = objectParse(raw, at, DAMPER_KEYS);
   const f = (k: string) => inputFieldPath(at, k);
-  const runs = listParse(d.runs, f('runs')).map((run, i) => runChecked(run, inputFieldPath(f('runs'), i)));
+  const runs = listParse(d.runs, f('runs')).map((run, i) =>
+    bundleRunChecked(run, inputFieldPath(f('runs'), i), { fits }),
+  );
   const seen = new Map<string, number>();
   runs.forEach((run, i) => {
     const key = `${run.points_sha256}|${run.source_sha256}|${run.source_column}|${run.imported_at}`;
@@ -502,6 +537,18 @@ function damperChecked(raw: unknown, at: string): CheckedDamper {
   };
 }
 
+/** A bundle's vehicle record, checked as `vehicle add` checks one (and its time of creation). */
+export function bundleVehicleChecked(raw: unknown, at: string): CheckedBundle['vehicle'] {
+  const v = objectParse(raw, at, VEHICLE_KEYS);
+  const f = (k: string) => inputFieldPath(at, k);
+  return {
+    name: nameFieldParse(v.name, f('name'), 'a vehicle name'),
+    kind: textFieldParse(v.kind, f('kind')),
+    notes: textFieldParse(v.notes, f('notes'), { maxLength: NOTES_MAX_LENGTH, multiline: true }),
+    createdAt: timestampParse(v.createdAt, f('createdAt')),
+  };
+}
+
 /**
  * A whole bundle checked record by record, by the rules of `setup save` (revisions) and
  * `bench import` (dampers and runs): strict keys everywhere, clean texts within their
@@ -519,24 +566,18 @@ function bundleChecked(raw: unknown): CheckedBundle {
       'version',
       `got ${JSON.stringify(o.version)}; this program reads bundle version ${BUNDLE_VERSION}`,
     );
-  const v = objectParse(o.vehicle, 'vehicle', VEHICLE_KEYS);
-  const vehicle = {
-    name: nameFieldParse(v.name, 'vehicle.name', 'a vehicle name'),
-    kind: textFieldParse(v.kind, 'vehicle.kind'),
-    notes: textFieldParse(v.notes, 'vehicle.notes', { maxLength: NOTES_MAX_LENGTH, multiline: true }),
-    createdAt: timestampParse(v.createdAt, 'vehicle.createdAt'),
-  };
+  const vehicle = bundleVehicleChecked(o.vehicle, 'vehicle');
   const rawRevisions = listParse(o.revisions, 'revisions');
   const byNumber = new Map<number, number>();
   const revisions = rawRevisions.map((r, i) => {
     const at = `revisions[${i}]`;
-    const checked = revisionChecked(r, at, rawRevisions.length);
+    const checked = bundleRevisionChecked(r, at, rawRevisions.length);
     if (byNumber.has(checked.number))
       throw new InputError(`${at}.number`, `revision ${checked.number} appears twice`);
     byNumber.set(checked.number, i);
     return checked;
   });
-  const dampers = listParse(o.dampers, 'dampers').map((d, i) => damperChecked(d, `dampers[${i}]`));
+  const dampers = listParse(o.dampers, 'dampers').map((d, i) => bundleDamperChecked(d, `dampers[${i}]`));
   const labels = new Map<string, number>();
   dampers.forEach((d, i) => {
     const earlier = labels.get(nameKey(d.label));

@@ -1,5 +1,6 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import Database from 'better-sqlite3';
 import { describe, expect, it } from 'vitest';
 import { tempFolder } from '../db/store-fixture';
 import { cli, fileDigest } from './cli-fixture';
@@ -48,5 +49,24 @@ describe('rideledger import checks every record of a bundle', () => {
     expect(out.stderr).toMatch(/revisions\[\d+\]\.number: got 9007199254740991/);
     expect(fileDigest(target)).toBe(before);
     expect((await cli('--db', target, 'check')).code).toBe(0);
+  });
+});
+
+describe('rideledger check', () => {
+  it('exits 1 and names a revision number broken by raw SQL', async () => {
+    const { db } = await demoExported();
+    expect((await cli('--db', db, 'check')).code).toBe(0);
+    const raw = new Database(db);
+    raw.exec(`DROP TRIGGER setup_revision_immutable;
+      UPDATE setup_revision SET number = 9007199254740991
+      WHERE id = (SELECT max(r.id) FROM setup_revision r JOIN vehicle v ON v.id = r.vehicle_id
+                  WHERE v.name = '${COUPE}')`);
+    raw.close();
+    const out = await cli('--db', db, 'check');
+    expect(out.code).toBe(1);
+    expect(out.stdout).toMatch(/Check FAILED/);
+    expect(out.stdout).toMatch(
+      /vehicle Millbrook coupe #27: its \d+ revisions are numbered 1 to 9007199254740991; they must be 1 to \d+, each once/,
+    );
   });
 });
