@@ -1,6 +1,6 @@
 import type Database from 'better-sqlite3';
 import { InputError } from '../core/input-error';
-import { textFieldParse } from '../core/text-field';
+import { textControlsEscaped, textFieldParse } from '../core/text-field';
 import { sha256Hex } from './bench-points';
 import {
   benchRunToBundle,
@@ -27,12 +27,7 @@ export type StoreCheckReport = {
 
 /** A stored text as a problem line may show it: control characters written as \u escapes. */
 function textShown(text: string): string {
-  let out = '';
-  for (const ch of text) {
-    const c = ch.charCodeAt(0);
-    out += c < 0x20 || (c >= 0x7f && c <= 0x9f) ? `\\u${c.toString(16).padStart(4, '0')}` : ch;
-  }
-  return out;
+  return textControlsEscaped(text).replace(/\n/g, '\\n');
 }
 
 /** Runs `check` and gives its InputError as one problem line under `record`; other errors pass. */

@@ -1,4 +1,5 @@
 import { InputError } from '../../core/input-error';
+import { textControlsEscaped } from '../../core/text-field';
 import { analyzeCommand } from './commands/analyze';
 import { benchSimCommand } from './commands/bench-sim';
 import { benchSweepCommand } from './commands/bench-sweep';
@@ -95,7 +96,9 @@ export async function cliMain(argv: string[], io: CliIo): Promise<number> {
     return await command.run(rest, io);
   } catch (e) {
     const { line, code } = errorLine(e);
-    io.stderr(`rideledger ${name}: ${line.replace(/\s*\n\s*/g, code === EXIT_FAILURE ? '\n' : ' ')}\n`);
+    // A message may quote what it was given: no control character of it reaches the terminal.
+    const shown = textControlsEscaped(line.replace(/\s*\n\s*/g, code === EXIT_FAILURE ? '\n' : ' '));
+    io.stderr(`rideledger ${name}: ${shown}\n`);
     return code;
   }
 }

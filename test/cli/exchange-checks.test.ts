@@ -1,11 +1,13 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import Database from 'better-sqlite3';
 import { describe, expect, it } from 'vitest';
 import { tempFolder } from '../db/store-fixture';
 import { cli, fileDigest } from './cli-fixture';
 
 const COUPE = 'Millbrook coupe #27';
+const DEMO = fileURLToPath(new URL('../../assets/demo/', import.meta.url));
 
 /** The demo shop in a fresh database, and its coupe exported as a bundle. */
 async function demoExported(): Promise<{ dir: string; db: string; bundle: Record<string, unknown> }> {
@@ -33,6 +35,20 @@ describe('rideledger import checks every record of a bundle', () => {
     // The message itself carries no escape to the terminal.
     expect(out.stderr).not.toContain('\u001b');
     expect(fileDigest(target)).toBe(before);
+  });
+
+  it('quotes a bad value in a message without letting its escape reach the terminal', async () => {
+    const dir = tempFolder();
+    const sheet = JSON.parse(readFileSync(join(DEMO, 'setups', 'coupe-27', '01-baseline.json'), 'utf8')) as {
+      corners: { FL: { rideHeight: unknown } };
+    };
+    sheet.corners.FL.rideHeight = '95\u001b[2J mm';
+    const file = join(dir, 'sheet.json');
+    writeFileSync(file, JSON.stringify(sheet));
+    const out = await cli('--db', join(dir, 'shop.sqlite'), 'setup', 'save', file, '--vehicle', 'Car');
+    expect(out.code).toBe(2);
+    expect(out.stderr).toMatch(/corners\.FL\.rideHeight: .*95\\u001b\[2J mm/);
+    expect(out.stderr).not.toContain('\u001b');
   });
 
   it('refuses revision number 2^53 − 1 through the command, and the database stays whole', async () => {
