@@ -85,4 +85,20 @@ describe('rideledger check', () => {
       /vehicle Millbrook coupe #27: its \d+ revisions are numbered 1 to 9007199254740991; they must be 1 to \d+, each once/,
     );
   });
+
+  it('shows a stored name with a terminal escape escaped in setup history, and check names it', async () => {
+    const { db } = await demoExported();
+    const raw = new Database(db);
+    raw.exec(`DROP TRIGGER setup_revision_immutable;
+      UPDATE setup_revision SET name = 'Wet' || char(27) || '[2J' WHERE number = 1`);
+    raw.close();
+    const history = await cli('--db', db, 'setup', 'history', COUPE);
+    expect(history.code).toBe(0);
+    expect(history.stdout).toContain('Wet\\u001b[2J');
+    expect(history.stdout).not.toContain('\u001b');
+    const check = await cli('--db', db, 'check');
+    expect(check.code).toBe(1);
+    expect(check.stdout).toMatch(/revision Millbrook coupe #27@1: name: contains a control character/);
+    expect(check.stdout).not.toContain('\u001b');
+  });
 });
