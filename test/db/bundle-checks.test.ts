@@ -287,4 +287,41 @@ describe('a bundle is checked as a setup sheet and a bench import are', () => {
     bundleImport(target, bundle);
     expect(bundleExport(target, 'Coupe')).toEqual(bundle);
   });
+
+  it('round-trips a corner with a bench table, gas force, a bump-stop curve and travel limits exactly', () => {
+    const store = freshStore();
+    const v = vehicleAdded(store, 'Coupe');
+    setupSaved(store, v, (r) => {
+      r.corners.RL.corner = {
+        ...r.corners.RL.corner,
+        tireDamping: '150 N*s/m',
+        damper: {
+          bump: {
+            points: [
+              ['0.025 m/s', '150 N'],
+              ['0.05 m/s', '280 N'],
+              ['0.3 m/s', '620 N'],
+            ],
+          },
+          rebound: { lowSpeed: '5200 N*s/m', kneeSpeed: '0.07 m/s', highSpeed: '1800 N*s/m' },
+          gasForce: '160 N',
+        },
+        bumpStop: {
+          gap: '25 mm',
+          curve: [
+            ['5 mm', '500 N'],
+            ['10 mm', '1500 N'],
+            ['15 mm', '4000 N'],
+          ],
+        },
+        reboundLimit: { travel: '40 mm' },
+        travelLimit: '60 mm',
+      };
+      r.corners.RR.toe = '-0.13 deg';
+    });
+    const bundle = bundleExport(store, 'Coupe');
+    const target = freshStore();
+    bundleImport(target, structuredClone(bundle));
+    expect(bundleExport(target, 'Coupe')).toEqual(bundle);
+  });
 });
