@@ -1,6 +1,6 @@
 import type Database from 'better-sqlite3';
 import { InputError } from '../core/input-error';
-import { textControlsEscaped, textFieldParse } from '../core/text-field';
+import { nameKey, textControlsEscaped, textFieldParse } from '../core/text-field';
 import { sha256Hex } from './bench-points';
 import {
   benchRunToBundle,
@@ -100,6 +100,10 @@ function recordProblems(db: Database.Database): string[] {
         bundleVehicleChecked({ name: v.name, kind: v.kind, notes: v.notes, createdAt: v.created_at }, ''),
       ),
     );
+    if (v.name_key !== nameKey(v.name))
+      problems.push(
+        `vehicle ${name}: its name key does not match its name (two vehicles could share a name)`,
+      );
     const revisions = setupRevisionList(db, v.id);
     const numbers = revisions.map((r) => r.number);
     const distinct = new Set(numbers).size;
@@ -137,7 +141,11 @@ function recordProblems(db: Database.Database): string[] {
       );
     }
   }
-  for (const d of statement(db, 'SELECT * FROM damper_unit ORDER BY id').all() as DamperUnitRow[])
+  for (const d of statement(db, 'SELECT * FROM damper_unit ORDER BY id').all() as DamperUnitRow[]) {
+    if (d.label_key !== nameKey(d.label))
+      problems.push(
+        `damper unit ${textShown(d.label)}: its label key does not match its label (two units could share a label)`,
+      );
     problems.push(
       ...problemOf(`damper unit ${textShown(d.label)}`, () =>
         bundleDamperChecked(
@@ -153,6 +161,7 @@ function recordProblems(db: Database.Database): string[] {
         ),
       ),
     );
+  }
   const fits = new Map<string, string>();
   for (const row of statement(db, 'SELECT * FROM bench_run ORDER BY id').iterate() as Iterable<BenchRunRow>) {
     const record = `bench run #${row.id}`;

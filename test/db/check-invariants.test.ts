@@ -140,6 +140,16 @@ const CASES: [what: string, sql: string, problem: RegExp][] = [
     /^revision Test coupe@1: corners\.FL\.analysis\.script: is not a known field here$/,
   ],
   [
+    'a vehicle name changed without its key',
+    `UPDATE vehicle SET name = 'Renamed' WHERE id = 2`,
+    /^vehicle Renamed: its name key does not match its name/,
+  ],
+  [
+    'a damper label changed without its key',
+    `UPDATE damper_unit SET label = 'T-9'`,
+    /^damper unit T-9: its label key does not match its label/,
+  ],
+  [
     'an implausible ride height',
     `UPDATE setup_corner SET ride_height = 95 WHERE revision_id = ${REV(1)} AND position = 'FR'`,
     /^revision Test coupe@1: corners\.FR\.rideHeight: .*outside the plausible/,
