@@ -58,6 +58,7 @@ export type BundleRevision = {
   fuelLoad: number | null;
   antiRollBar: { front: string; rear: string };
   notes: string;
+  /** What changed from the parent, as stored; an import recomputes it from the sheets. */
   summary: string;
   savedAt: string;
   corners: Record<CornerPosition, BundleCorner>;
@@ -79,6 +80,7 @@ export type BundleBenchRun = {
   pointsSha256: string;
   traceCount: number | null;
   trace: string | null;
+  /** The fitted curve as stored; an import refits the points and keeps only its own fit. */
   fit: unknown;
   notes: string;
   importedAt: string;
