@@ -9,6 +9,7 @@ import {
 import { benchTableRead, type BenchTableOptions, type BenchTableRun } from '../core/damper/bench-table';
 import { clickSettingsText } from '../core/damper/click-settings';
 import { InputError } from '../core/units/input-error';
+import { quantityParse, type QuantityKind } from '../core/units/units';
 import { benchPointsEncode, benchTraceEncode, sha256Hex } from './bench-points';
 import { benchRunInsert, benchRunsFromSource } from './queries/bench-run';
 import { damperUnitEnsure, type DamperUnitFields } from './damper-units';
@@ -17,6 +18,19 @@ import type { DamperUnitRow } from './rows';
 export type { DamperUnitFields };
 import { clickColumnsOf } from './setup-rows';
 import { storeTransaction, type Store } from './store';
+
+/**
+ * Reads a bench run's measured quantity (stroke, test frequency, temperature, gas force):
+ * SI number or text with its unit, greater than zero. The one rule for a bench import and
+ * a bundle's runs. `undefined` stays undefined.
+ * @throws InputError naming `field`.
+ */
+export function benchQuantityParse(raw: unknown, kind: QuantityKind, field: string): number | undefined {
+  if (raw === undefined) return undefined;
+  const v = quantityParse(raw, kind, field);
+  if (!(v > 0)) throw new InputError(field, `must be greater than zero (got ${v} in SI)`);
+  return v;
+}
 
 /** One bench import: a file's text and what the shop says about the run(s) in it. */
 export type BenchImportRequest = {

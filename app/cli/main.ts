@@ -1,4 +1,17 @@
 import { InputError } from '../../core/units/input-error';
+import { textControlsEscaped } from '../../core/units/text-field';
+import { analyzeCommand } from './commands/analyze';
+import { benchSimCommand } from './commands/bench-sim';
+import { benchSweepCommand } from './commands/bench-sweep';
+import { simulateCommand } from './commands/simulate';
+import { benchCommand } from './commands/bench';
+import { chooseCommand } from './commands/choose';
+import { compareCommand } from './commands/compare';
+import { dampingMapCommand } from './commands/damping-map';
+import { exportCommand, importCommand } from './commands/exchange';
+import { setupCommand } from './commands/setup';
+import { backupCommand, checkCommand, demoCommand } from './commands/store';
+import { vehicleCommand } from './commands/vehicle';
 import { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_OK, UsageError, type CliIo } from './cli-io';
 
 type CommandRun = (args: string[], io: CliIo) => Promise<number>;
@@ -126,7 +139,9 @@ export async function cliMain(argv: string[], io: CliIo): Promise<number> {
     )(rest, io);
   } catch (e) {
     const { line, code } = errorLine(e);
-    io.stderr(`rideledger ${name}: ${line.replace(/\s*\n\s*/g, code === EXIT_FAILURE ? '\n' : ' ')}\n`);
+    // A message may quote what it was given: no control character of it reaches the terminal.
+    const shown = textControlsEscaped(line.replace(/\s*\n\s*/g, code === EXIT_FAILURE ? '\n' : ' '));
+    io.stderr(`rideledger ${name}: ${shown}\n`);
     return code;
   }
 }

@@ -1,3 +1,5 @@
+import { textControlsEscaped } from '../../core/units/text-field';
+
 /** Plain-text tables for the command's human output. */
 export type TableRow = readonly string[];
 
@@ -8,11 +10,13 @@ const width = (s: string) => [...s].length;
 /**
  * Lays rows out in columns. A cell that is a number, optionally followed by a space and a
  * unit ("56.7 N/mm"), is aligned on its number: numbers right-aligned, units after them.
+ * A control character in a cell (a stored name's terminal escape) is shown as a `\u` escape.
  */
 export function tableFormat(
-  rows: readonly TableRow[],
+  given: readonly TableRow[],
   options: { indent?: number; gap?: number } = {},
 ): string {
+  const rows = given.map((r) => r.map(textControlsEscaped));
   const indent = ' '.repeat(options.indent ?? 2);
   const gap = ' '.repeat(options.gap ?? 3);
   const columns = Math.max(0, ...rows.map((r) => r.length));

@@ -34,6 +34,21 @@ export function textLength(text: string, stopAbove = Infinity): number {
   return n;
 }
 
+/**
+ * A text as a message or a listing may show it to a terminal: each control character other
+ * than newline (a terminal escape among them) written as a `\u` escape, so that no stored or
+ * given text can move the cursor, clear the screen or retitle the window of whoever reads it.
+ */
+export function textControlsEscaped(text: string): string {
+  let out = '';
+  for (const ch of text) {
+    const c = ch.charCodeAt(0);
+    out +=
+      (c < 0x20 && c !== 0x0a) || (c >= 0x7f && c <= 0x9f) ? `\\u${c.toString(16).padStart(4, '0')}` : ch;
+  }
+  return out;
+}
+
 function describe(value: unknown): string {
   if (value === null) return 'null';
   if (Array.isArray(value)) return 'a list';

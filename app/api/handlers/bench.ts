@@ -4,8 +4,7 @@ import { calendarDateParse } from '../../../core/units/calendar-date';
 import { clickSettingsFromText, clickSettingsParse } from '../../../core/damper/click-settings';
 import { InputError } from '../../../core/units/input-error';
 import { nameFieldParse, NOTES_MAX_LENGTH, textFieldParse } from '../../../core/units/text-field';
-import { quantityParse, type QuantityKind } from '../../../core/units/units';
-import { benchImport } from '../../../db/bench-import';
+import { benchImport, benchQuantityParse as positiveQuantity } from '../../../db/bench-import';
 import { benchPointsDecode } from '../../../db/bench-points';
 import { benchRunById, benchRunListOfDamper } from '../../../db/queries/bench-run';
 import { damperUnitById, damperUnitList } from '../../../db/queries/damper-unit';
@@ -15,13 +14,6 @@ import { textFileRead } from '../../../db/text-file';
 import type { ApiContext } from '../context';
 import type { HandlerOutput, HandlerParsedInput } from '../contract';
 import { benchRunViewOf, damperViewOf } from '../record-views';
-
-function positiveQuantity(raw: unknown, kind: QuantityKind, field: string): number | undefined {
-  if (raw === undefined) return undefined;
-  const v = quantityParse(raw, kind, field);
-  if (!(v > 0)) throw new InputError(field, `must be greater than zero (got ${v} in SI)`);
-  return v;
-}
 
 /**
  * Handler `benchImport`: reads a bench file (a point table, one column pair per clicker

@@ -10,7 +10,10 @@ export function storeExportHandler(
   return { bundle: bundleExport(store, input.vehicle) as HandlerOutput<'storeExport'>['bundle'] };
 }
 
-/** Handler `storeImport`: a bundle into this database, all or nothing. */
+/**
+ * Handler `storeImport`: a bundle into this database, all or nothing, every record checked
+ * by the rules of `setup save` and `bench import`, fits and summaries recomputed (bundleImport).
+ */
 export function storeImportHandler(
   input: HandlerParsedInput<'storeImport'>,
   { store }: ApiContext,

@@ -12,9 +12,13 @@ export const EXPORT_USAGE = `rideledger [--db FILE] export VEHICLE --out FILE [-
 
 export const IMPORT_USAGE = `rideledger [--db FILE] import FILE [--as NAME] [--json]
 
-  Reads a bundle into this database, all or nothing. A vehicle of the same name is never
-  overwritten: import it under another name with --as. Damper units already here (same
-  label, type and serial) are used, and bench runs already here are not added twice.`;
+  Reads a bundle into this database, all or nothing. Every record is checked as setup save
+  and bench import check theirs (texts, lengths, clicks, dates, quantities, revision numbers
+  and parents, no unknown field, no run twice); a wrong one refuses the whole bundle, naming
+  the record and field. Fits are recomputed from the points and each revision's line of what
+  changed from the sheets. A vehicle of the same name is never overwritten: import it under
+  another name with --as. Damper units already here (same label, type and serial) are used,
+  and bench runs already here are not added twice.`;
 
 export async function exportCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = commandArgsParse(args, {

@@ -1,6 +1,7 @@
 import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import { CAUTION_TEXT } from '../../../core/safety/caution';
+import { csvFormat } from '../../../core/units/csv';
 import { cornerFileParse, type CornerFile } from '../../../core/corner/corner-file';
 import {
   EVENT_DURATION,
@@ -218,11 +219,10 @@ const CSV_COLUMNS: readonly [keyof SimulationHistory, string][] = [
 
 /** The history as CSV: a header of column names with their SI units, one row per sample. */
 export function historyCsv(h: SimulationHistory): string {
-  const lines = [CSV_COLUMNS.map(([, name]) => name).join(',')];
-  for (let k = 0; k < h.time.length; k++) {
-    lines.push(CSV_COLUMNS.map(([key]) => String(Number((h[key][k] as number).toPrecision(10)))).join(','));
-  }
-  return `${lines.join('\n')}\n`;
+  const rows: (string | number)[][] = [CSV_COLUMNS.map(([, name]) => name)];
+  for (let k = 0; k < h.time.length; k++)
+    rows.push(CSV_COLUMNS.map(([key]) => Number((h[key][k] as number).toPrecision(10))));
+  return csvFormat(rows, '\n');
 }
 
 export async function simulateCommand(args: string[], io: CliIo): Promise<number> {

@@ -12,8 +12,11 @@ export const BACKUP_USAGE = `rideledger [--db FILE] backup OUT [--force] [--json
 
 export const CHECK_USAGE = `rideledger [--db FILE] check [--json]
 
-  Runs SQLite's integrity and foreign-key checks and RideLedger's own (four corners per
-  revision, bench points against their checksums). Exit code 0 when all is well, 1 if not.`;
+  Runs SQLite's integrity and foreign-key checks and RideLedger's own: four corners per
+  revision, bench points against their checksums, and every record by the rules an import
+  checks a bundle's by (clean texts within their lengths, clicks, dates, revisions numbered
+  1 to N with earlier parents, fits equal to a refit of their points, no run stored twice).
+  Exit code 0 when all is well, 1 if not.`;
 
 export const DEMO_USAGE = `rideledger [--db FILE] demo [--json]
 
