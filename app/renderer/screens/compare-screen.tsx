@@ -2,7 +2,6 @@ import { useEffect, useId, useMemo, useState } from 'react';
 import { cornerQuarterCar } from '../../../core/corner';
 import { eventBump } from '../../../core/event';
 import { frequencyResponseGrid, frequencyResponseMagnitudeAt } from '../../../core/frequency-response';
-import { setupFileParse } from '../../../core/setup-file';
 import type { CornerPosition, SetupSheet } from '../../../core/setup-sheet';
 import { eventSimulate } from '../../../core/simulate';
 import {
@@ -21,6 +20,7 @@ import {
 import type { ValvingTargets } from '../../../core/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
+import { revisionSheetOf } from '../revision-dampers';
 import { useApp, type RevisionPick } from '../app-context';
 import { CornerChoice, PresetChoice } from '../components/choices';
 import { CautionLine, WarningList } from '../components/caution';
@@ -82,7 +82,7 @@ export function CompareScreen() {
             revision: pick.revision,
             units: 'si',
           });
-          return { pick, name: r.revision.name, sheet: setupFileParse(r.file).sheet };
+          return { pick, name: r.revision.name, sheet: revisionSheetOf(r) };
         }),
       );
       const [first, ...rest] = picks;
