@@ -64,13 +64,6 @@ export function axleFrequency(
   return (x.figures.rideFrequencyHz + y.figures.rideFrequencyHz) / 2;
 }
 
-const SOURCE_WORDS: Record<CurveSource['kind'], string> = {
-  bench: 'Damper curve: measured',
-  interpolated: 'Damper curve: interpolated',
-  entered: 'Damper curve: as entered',
-  asking: 'Damper curve',
-};
-
 /** One line saying where a corner's damper curve comes from. */
 export function CurveSourceLine(props: { source: CurveSource; position: CornerPosition }) {
   return (
@@ -79,7 +72,7 @@ export function CurveSourceLine(props: { source: CurveSource; position: CornerPo
       data-testid={`curve-source-${props.position}`}
       data-source={props.source.kind}
     >
-      <strong>{SOURCE_WORDS[props.source.kind]}</strong> — {props.source.text}
+      <strong>Damper curve:</strong> {props.source.text}
     </p>
   );
 }
