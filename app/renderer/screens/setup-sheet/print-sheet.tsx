@@ -83,7 +83,7 @@ export function PrintSheet(props: {
           </tr>
         </tbody>
       </table>
-      <p className="muted">Figures from RideLedger’s simplified model. Caution: {CAUTION_TEXT}</p>
+      <p className="muted">Caution: {CAUTION_TEXT}</p>
     </section>
   );
 }
