@@ -180,6 +180,31 @@ describe.skipIf(!chromium)('the setup sheet in a real Chromium', () => {
     await screenshotSave(page, 'setup-sheet-print');
     await card('RR').waitFor();
     await page.evaluate(() => delete (window as unknown as { rideledgerNative?: unknown }).rideledgerNative);
+  });
+
+  it('follows a revision saved elsewhere meanwhile: back on the sheet, it starts from the newest', async () => {
+    // The sheet here is open on #8. Another window saves #9 after #8.
+    const other = await browser.context.newPage();
+    other.setDefaultTimeout(20_000);
+    await other.goto(app.url);
+    await other.getByRole('button', { name: new RegExp(COUPE) }).click();
+    await other.getByRole('button', { name: 'New revision from #8' }).click();
+    await other
+      .getByRole('group', { name: /\(FR\)$/ })
+      .getByLabel('Camber')
+      .fill('-3.5');
+    await other.getByRole('button', { name: 'Save as new revision' }).click();
+    await other.getByText(/Saved as revision #9/).waitFor();
+    await other.close();
+    await screenOpen(page, 'Vehicles');
+    await screenOpen(page, 'Setup sheet');
+    await page.getByRole('heading', { name: /new revision after #9/ }).waitFor();
+    await page.getByText('Revision #9 was saved after #8 meanwhile: the sheet now starts from #9.').waitFor();
+    await expect(card('FR').getByLabel('Camber').inputValue()).resolves.toBe('-3.5');
+    await card('RR').getByLabel('Ride height').fill('99');
+    await page.getByRole('button', { name: 'Save as new revision' }).click();
+    await page.getByText(/^Saved as revision #10: /).waitFor();
+    expect(await page.getByText(/branch from/).count()).toBe(0);
     expect(pageErrors).toEqual([]);
   });
 });

@@ -23,6 +23,29 @@ const draftKey = (vehicle: string) => `draft:${vehicle}`;
  */
 const pageDrafts = new Map<string, Draft | null>();
 
+/** The vehicle's newest revision number when a sheet last loaded, by the app's sheet it loaded for. */
+const sheetSeen = new WeakMap<SheetOpen, number>();
+
+/**
+ * The revision a sheet coming back should start from: the newest one saved since it was last
+ * here (elsewhere: another window, the command) in the line of its own revision — or its own.
+ */
+function revisionFollowed(
+  revisions: readonly { number: number; parent: number | null }[],
+  from: number,
+  seen: number | undefined,
+): number {
+  if (seen === undefined) return from;
+  const parentOf = new Map(revisions.map((r) => [r.number, r.parent]));
+  const descends = (n: number) => {
+    for (let p: number | null | undefined = n; typeof p === 'number'; p = parentOf.get(p))
+      if (p === from) return true;
+    return false;
+  };
+  const later = revisions.filter((r) => r.number > seen && r.number !== from && descends(r.number));
+  return later.at(-1)?.number ?? from;
+}
+
 type UndoHistory = { stack: SetupForm[]; at: number; lastPath: string; lastTime: number };
 
 /**
@@ -67,26 +90,40 @@ export function useSheetEdit(open: SheetOpen | null) {
     (async () => {
       let f: SetupForm;
       let name = '';
-      if (open.fromRevision !== undefined) {
-        const r = await apiCall('setupShow', {
-          vehicle: open.vehicle,
-          revision: open.fromRevision,
-          units: units.current,
-        });
+      let from = open.fromRevision;
+      const here = pageDrafts.get(open.vehicle);
+      let note = '';
+      if (from !== undefined) {
+        const h = await apiCall('setupHistory', { vehicle: open.vehicle });
+        // A sheet coming back with no edits of its own follows what was saved after its revision meanwhile.
+        const next =
+          here?.basedOnRevision === from ? from : revisionFollowed(h.revisions, from, sheetSeen.get(open));
+        sheetSeen.set(open, h.revisions.at(-1)?.number ?? from);
+        if (next !== from) {
+          note = `Revision #${next} was saved after #${from} meanwhile: the sheet now starts from #${next}.`;
+          from = next;
+        }
+        const r = await apiCall('setupShow', { vehicle: open.vehicle, revision: from, units: units.current });
         f = setupFormFromFile(r.file, units.current);
         name = r.revision.name;
       } else {
         f = setupFormBlank(units.current, '');
       }
-      const here = pageDrafts.get(open.vehicle);
       const stored =
         here === undefined
           ? ((await apiCall('settingGet', { key: draftKey(open.vehicle) })).value as Draft | null)
           : here;
       if (gone) return;
       history.current = { stack: [f], at: 0, lastPath: '', lastTime: 0 };
-      setBasedOn(open.fromRevision);
+      setBasedOn(from);
       setBaseName(name);
+      setMessage(note);
+      if (from !== undefined && from !== open.fromRevision) {
+        const moved: SheetOpen = { vehicle: open.vehicle, fromRevision: from };
+        sheetSeen.set(moved, sheetSeen.get(open) ?? from);
+        followed.current = moved;
+        app.openSheet(moved);
+      }
       if (here && here.basedOnRevision === open.fromRevision) {
         // Back from another screen: the sheet is as it was left.
         const back = formIn(here.form);
@@ -222,6 +259,7 @@ export function useSheetEdit(open: SheetOpen | null) {
       // The app now opens the sheet on the revision just saved: other screens and the way back agree.
       const next: SheetOpen = { vehicle: open.vehicle, fromRevision: n };
       followed.current = next;
+      sheetSeen.set(next, n);
       app.openSheet(next);
       app.dataChanged();
     } catch (e) {
