@@ -15,6 +15,9 @@ import { SheetField } from './setup-sheet/sheet-field';
 import { useCornerDampers } from './setup-sheet/use-corner-dampers';
 import { useSheetEdit } from './setup-sheet/use-sheet-edit';
 
+/** Least time the printable sheet stays on screen (ms). */
+const PRINT_VIEW_MS = 1500;
+
 /** What the sheet holds, in words: which revision it starts from, and whether it is saved. */
 function revisionTextOf(basedOn: number | undefined, name: string, dirty: boolean): string {
   if (basedOn === undefined) return 'First setup, not saved yet';
@@ -68,14 +71,20 @@ export function SetupEditor() {
     [save, step],
   );
 
+  // The printable sheet is drawn, printed, and stays on screen a moment (a quick PDF save would flash it).
   useEffect(() => {
     if (!printView) return;
+    const shownAt = Date.now();
+    let back: ReturnType<typeof setTimeout> | undefined;
     const t = setTimeout(() => {
-      void pagePrint(`${open?.vehicle ?? 'setup'} ${form?.values.name ?? ''}.pdf`.trim()).finally(() =>
-        setPrintView(false),
-      );
+      void pagePrint(`${open?.vehicle ?? 'setup'} ${form?.values.name ?? ''}.pdf`.trim()).finally(() => {
+        back = setTimeout(() => setPrintView(false), Math.max(0, PRINT_VIEW_MS - (Date.now() - shownAt)));
+      });
     }, 50);
-    return () => clearTimeout(t);
+    return () => {
+      clearTimeout(t);
+      if (back) clearTimeout(back);
+    };
   }, [printView, open, form]);
 
   if (!open) {
