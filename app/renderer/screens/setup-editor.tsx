@@ -17,6 +17,8 @@ import { useSheetEdit } from './setup-sheet/use-sheet-edit';
 
 /** Least time the printable sheet stays on screen (ms). */
 const PRINT_VIEW_MS = 1500;
+/** Longest wait for the damper curves' sources before printing without them (ms). */
+const PRINT_WAIT_MS = 3000;
 
 /** What the sheet holds, in words: which revision it starts from, and whether it is saved. */
 function revisionTextOf(basedOn: number | undefined, name: string, dirty: boolean): string {
@@ -71,21 +73,26 @@ export function SetupEditor() {
     [save, step],
   );
 
-  // The printable sheet is drawn, printed, and stays on screen a moment (a quick PDF save would flash it).
+  // The printable sheet is drawn — once each curve's source is known, or after a wait — printed, and
+  // stays on screen a moment (a quick PDF save would flash it).
+  const asking = Object.values(live).some((l) => !('error' in l) && l.source.kind === 'asking');
   useEffect(() => {
     if (!printView) return;
     const shownAt = Date.now();
     let back: ReturnType<typeof setTimeout> | undefined;
-    const t = setTimeout(() => {
-      void pagePrint(`${open?.vehicle ?? 'setup'} ${form?.values.name ?? ''}.pdf`.trim()).finally(() => {
-        back = setTimeout(() => setPrintView(false), Math.max(0, PRINT_VIEW_MS - (Date.now() - shownAt)));
-      });
-    }, 50);
+    const t = setTimeout(
+      () => {
+        void pagePrint(`${open?.vehicle ?? 'setup'} ${form?.values.name ?? ''}.pdf`.trim()).finally(() => {
+          back = setTimeout(() => setPrintView(false), Math.max(0, PRINT_VIEW_MS - (Date.now() - shownAt)));
+        });
+      },
+      asking ? PRINT_WAIT_MS : 50,
+    );
     return () => {
       clearTimeout(t);
       if (back) clearTimeout(back);
     };
-  }, [printView, open, form]);
+  }, [printView, asking, open, form]);
 
   if (!open) {
     return (

@@ -93,12 +93,13 @@ export function useSheetEdit(open: SheetOpen | null) {
       let from = open.fromRevision;
       const here = pageDrafts.get(open.vehicle);
       let note = '';
+      let newest: number | undefined;
       if (from !== undefined) {
         const h = await apiCall('setupHistory', { vehicle: open.vehicle });
         // A sheet coming back with no edits of its own follows what was saved after its revision meanwhile.
         const next =
           here?.basedOnRevision === from ? from : revisionFollowed(h.revisions, from, sheetSeen.get(open));
-        sheetSeen.set(open, h.revisions.at(-1)?.number ?? from);
+        newest = h.revisions.at(-1)?.number ?? from;
         if (next !== from) {
           note = `Revision #${next} was saved after #${from} meanwhile: the sheet now starts from #${next}.`;
           from = next;
@@ -114,6 +115,8 @@ export function useSheetEdit(open: SheetOpen | null) {
           ? ((await apiCall('settingGet', { key: draftKey(open.vehicle) })).value as Draft | null)
           : here;
       if (gone) return;
+      // Marked only by the load that stands (React may start this effect twice).
+      if (newest !== undefined) sheetSeen.set(open, newest);
       history.current = { stack: [f], at: 0, lastPath: '', lastTime: 0 };
       setBasedOn(from);
       setBaseName(name);
