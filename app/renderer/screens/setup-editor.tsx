@@ -1,10 +1,10 @@
 import { useEffect, useMemo, useState } from 'react';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
-import { apiCall } from '../api-client';
+import { ApiCallError, apiCall } from '../api-client';
 import { useApp } from '../app-context';
 import { ErrorLine } from '../components/status';
 import { menuCommandsListen, pagePrint } from '../native';
-import { setupFieldLabel } from '../setup-field-words';
+import { setupFieldLabel, setupProblemText } from '../setup-field-words';
 import { TOP_FIELDS, formFields } from '../setup-form';
 import { CornerCard } from './setup-sheet/corner-card';
 import { axleFrequency, cornerLiveOf, type CornerLive } from './setup-sheet/corner-figures';
@@ -19,6 +19,21 @@ import { useSheetEdit } from './setup-sheet/use-sheet-edit';
 const PRINT_VIEW_MS = 1500;
 /** Longest wait for the damper curves' sources before printing without them (ms). */
 const PRINT_WAIT_MS = 3000;
+
+/** A failure from the store in the sheet's words: the field by its label, never its key. */
+function SheetErrorLine(props: { error: unknown }) {
+  const e = props.error;
+  if (e instanceof ApiCallError && e.field) {
+    const problem = e.message.startsWith(`${e.field}: `) ? e.message.slice(e.field.length + 2) : e.message;
+    const text = setupProblemText(e.field, problem, true);
+    return (
+      <p className="status error" role="alert">
+        {text === problem ? `${setupFieldLabel(e.field, true)}: ${problem}` : text}
+      </p>
+    );
+  }
+  return <ErrorLine error={e} />;
+}
 
 /** What the sheet holds, in words: which revision it starts from, and whether it is saved. */
 function revisionTextOf(basedOn: number | undefined, name: string, dirty: boolean): string {
@@ -105,7 +120,7 @@ export function SetupEditor() {
       </section>
     );
   }
-  if (sheet.error && !form) return <ErrorLine error={sheet.error} />;
+  if (sheet.error && !form) return <SheetErrorLine error={sheet.error} />;
   if (!form) return <p>Loading the sheet…</p>;
 
   const revisionText = revisionTextOf(basedOn, sheet.baseName, dirty);
@@ -156,12 +171,12 @@ export function SetupEditor() {
           {sheet.message}
         </span>
       </div>
-      <ErrorLine error={sheet.error} />
+      <SheetErrorLine error={sheet.error} />
       {unplaced.length > 0 ? (
         <ul className="warning-list" aria-label="Problems of the sheet">
           {unplaced.map(([path, problem]) => (
             <li key={path}>
-              {setupFieldLabel(path, true)}: {problem}
+              {/^corners\.(FL|FR|RL|RR)\./.exec(path)?.[1] ?? 'Vehicle'}: {problem}
             </li>
           ))}
         </ul>
