@@ -30,7 +30,7 @@ export type DamperCurveSource = {
   clicks: ClickSettings;
   /** The bench runs the curve comes from (none for an entered curve). */
   runIds: number[];
-  /** One line for the sheet: "bench run #12 of MB-DA-1, bump 3 rebound 9", "entered on the sheet: …". */
+  /** One line for the sheet: "bench run #12 of MB-DA-1, bump 3 rebound 9", "entered on the sheet; …". */
   text: string;
 };
 
@@ -125,7 +125,7 @@ function cornerResolve(ref: CornerDamperRef, lookup: (label: string) => DamperLo
       damper: ref.damperUnit,
       clicks,
       runIds: [],
-      text: `entered on the sheet: ${why}`,
+      text: `entered on the sheet; ${why}`,
     },
     warning: null,
   });

@@ -69,7 +69,7 @@ describe('which damper curve a corner runs: one answer on every screen and comma
     const shown = await apiCall('setupShow', { vehicle: COUPE, units: 'si' }, ctx);
     const fr = shown.dampers.find((d) => d.position === 'FR');
     expect(fr?.source).toMatchObject({ kind: 'entered', damper: 'MB-DA-2', runIds: [] });
-    expect(fr?.source.text).toBe('entered on the sheet: MB-DA-2 has no bench runs');
+    expect(fr?.source.text).toBe('entered on the sheet; MB-DA-2 has no bench runs');
     expect(fr?.warning).toBeNull();
     const entered = cornerRideFigures(setupFileParse(shown.file).sheet.corners.FR.analysis);
     expect(shown.figures.FR.dampingRatio.rebound).toBeCloseTo(entered.dampingRatio.rebound, SAME);
@@ -137,7 +137,7 @@ describe('which damper curve a corner runs: one answer on every screen and comma
     const far = out.dampers.find((d) => d.position === 'FL');
     expect(far?.source.kind).toBe('entered');
     expect(far?.source.text).toBe(
-      'entered on the sheet: the bench runs of MB-DA-1 (bump 0–12, rebound 0–12) do not cover bump 14 rebound 8',
+      'entered on the sheet; the bench runs of MB-DA-1 (bump 0–12, rebound 0–12) do not cover bump 14 rebound 8',
     );
     const entered = cornerRideFigures(setupFileParse(out.file).sheet.corners.FL.analysis);
     expect(out.figures.FL.dampingRatio.bump).toBeCloseTo(entered.dampingRatio.bump, SAME);
@@ -176,7 +176,7 @@ describe('which damper curve a corner runs: one answer on every screen and comma
     const [fl, rl] = edited.dampers;
     expect(fl?.source.kind).toBe('bench');
     expect(fl?.source.damper).toBe('MB-DA-1');
-    expect(rl?.source.text).toBe('entered on the sheet: no damper unit named');
+    expect(rl?.source.text).toBe('entered on the sheet; no damper unit named');
     const corner = cornerInputParse(file.corners.FL?.corner);
     const zeta = cornerRideFigures({ ...corner, damper: damperCurveParse(fl?.curve, 'curve') }).dampingRatio;
     expect(zeta.bump).toBeCloseTo(cell.figures.dampingRatio.bump, SAME);

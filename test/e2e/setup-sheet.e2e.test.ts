@@ -49,7 +49,7 @@ describe.skipIf(!chromium)('the setup sheet in a real Chromium', () => {
     );
     await expect
       .poll(() => sourceOf('FR').textContent())
-      .toMatch(/Damper curve: entered on the sheet: MB-DA-2 has no bench runs/);
+      .toMatch(/Damper curve: entered on the sheet; MB-DA-2 has no bench runs/);
     await page
       .getByRole('list', { name: 'FL warnings' })
       .getByText(
