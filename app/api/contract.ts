@@ -1,8 +1,9 @@
 import { z } from 'zod';
 import { boundedFileSchema } from './input-bounds';
-import { analyzeReportSchema } from './schemas';
+import { analyzeReportSchema, warningSchema } from './schemas';
 import {
   backupResultSchema,
+  clickSettingsSchema,
   benchFitSchema,
   benchImportInputSchema,
   benchRunSummarySchema,
@@ -30,6 +31,24 @@ const settingKeySchema = z
   .regex(/^[a-z][a-z0-9-]*(:.+)?$/, 'expected a setting name such as "units" or "draft:Vehicle name"');
 
 const vehicleNamed = z.strictObject({ id: z.number().int(), name: z.string() });
+
+/**
+ * Which damper curve a corner runs (db/damper-resolve.ts): its source — a bench run at the
+ * corner's clicks, interpolated between measured clicks, or entered — the curve itself (a
+ * corner file's "damper" object, SI) and the warning when the entered curve disagrees.
+ */
+const cornerDamperSchema = z.strictObject({
+  position: cornerPositionSchema,
+  source: z.strictObject({
+    kind: z.enum(['bench', 'interpolated', 'entered']),
+    damper: z.string(),
+    clicks: clickSettingsSchema,
+    runIds: z.array(z.number().int()),
+    text: z.string(),
+  }),
+  curve: z.record(z.string(), z.unknown()),
+  warning: warningSchema.nullable(),
+});
 
 /**
  * The one typed API contract: handler name → zod input and output schemas. The command,
@@ -106,9 +125,27 @@ export const contract = {
         RL: cornerFiguresSchema,
         RR: cornerFiguresSchema,
       }),
+      /** The damper curve each corner's figures use, and where it comes from. */
+      dampers: z.array(cornerDamperSchema),
       warnings: z.array(cornerWarningSchema),
       caution: z.string(),
     }),
+  },
+  setupDampers: {
+    /** Corners being edited: each corner's "corner" object, damper unit and clicks as a setup file has them. */
+    input: z.strictObject({
+      corners: z
+        .array(
+          z.strictObject({
+            position: cornerPositionSchema,
+            corner: z.unknown(),
+            damperUnit: z.string().max(200),
+            clicks: z.unknown().optional(),
+          }),
+        )
+        .max(4),
+    }),
+    output: z.strictObject({ dampers: z.array(cornerDamperSchema) }),
   },
   setupHistory: {
     input: z.strictObject({ vehicle: vehicleRefSchema }),

@@ -1,17 +1,5 @@
 import { InputError } from '../../core/units/input-error';
 import { textControlsEscaped } from '../../core/units/text-field';
-import { analyzeCommand } from './commands/analyze';
-import { benchSimCommand } from './commands/bench-sim';
-import { benchSweepCommand } from './commands/bench-sweep';
-import { simulateCommand } from './commands/simulate';
-import { benchCommand } from './commands/bench';
-import { chooseCommand } from './commands/choose';
-import { compareCommand } from './commands/compare';
-import { dampingMapCommand } from './commands/damping-map';
-import { exportCommand, importCommand } from './commands/exchange';
-import { setupCommand } from './commands/setup';
-import { backupCommand, checkCommand, demoCommand } from './commands/store';
-import { vehicleCommand } from './commands/vehicle';
 import { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_OK, UsageError, type CliIo } from './cli-io';
 
 type CommandRun = (args: string[], io: CliIo) => Promise<number>;

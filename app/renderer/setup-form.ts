@@ -74,7 +74,7 @@ export const CORNER_FIELDS: readonly FieldSpec[] = [
   { key: 'rideHeight', label: 'Ride height', kind: 'length' },
   { key: 'tirePressureCold', label: 'Cold pressure', kind: 'pressure' },
   { key: 'camber', label: 'Camber', kind: 'angle' },
-  { key: 'toe', label: 'Toe (+ in)', kind: 'toe' },
+  { key: 'toe', label: 'Toe, toe-in positive', kind: 'toe' },
   { key: 'notes', label: 'Notes', kind: 'notes' },
 ];
 

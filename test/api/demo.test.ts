@@ -38,7 +38,9 @@ describe('loadDemo', () => {
         expect(shown.figures[p].wheelHopFrequencyHz).toBeGreaterThan(WARNING_BANDS.wheelHopFrequencyHz.low);
         expect(shown.figures[p].wheelHopFrequencyHz).toBeLessThan(WARNING_BANDS.wheelHopFrequencyHz.high);
       }
-      expect(shown.warnings).toEqual([]);
+      // No model warning on the figures; where a corner's entered damper curve is not what its
+      // bench run gives at its clicks (the demo coupe's front left), the sheet says so.
+      expect(shown.warnings.filter((w) => w.code !== 'damper-entered-differs')).toEqual([]);
     }
   });
 

@@ -5,7 +5,13 @@ import { benchImportHandler, benchListHandler, benchShowHandler } from './bench'
 import { loadDemo } from './demo';
 import { storeExportHandler, storeImportHandler } from './exchange';
 import { settingGetHandler, settingListHandler, settingSetHandler } from './setting';
-import { setupDiffHandler, setupHistoryHandler, setupSaveHandler, setupShowHandler } from './setup';
+import {
+  setupDampersHandler,
+  setupDiffHandler,
+  setupHistoryHandler,
+  setupSaveHandler,
+  setupShowHandler,
+} from './setup';
 import { storeBackupHandler, storeCheckHandler } from './store';
 import {
   setupCompareHandler,
@@ -24,6 +30,7 @@ export const handlers = {
   vehicleDelete: vehicleDeleteHandler,
   setupSave: setupSaveHandler,
   setupShow: setupShowHandler,
+  setupDampers: setupDampersHandler,
   setupHistory: setupHistoryHandler,
   setupDiff: setupDiffHandler,
   benchImport: benchImportHandler,

@@ -6,11 +6,20 @@ import { InputError } from '../../../core/units/input-error';
 import { modesOf } from '../../../core/corner/modal';
 import { SETUP_FIGURE_LABELS, setupDiff } from '../../../core/setup/setup-diff';
 import { setupFileParse, setupFileWrite } from '../../../core/setup/setup-file';
-import { CORNER_POSITIONS, type SetupSheet } from '../../../core/setup/setup-sheet';
+import { clickSettingsParse } from '../../../core/damper/click-settings';
+import { cornerInputParse } from '../../../core/corner/corner-file';
+import { damperCurveToFile } from '../../../core/damper/damper-curve';
+import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../../../core/setup/setup-sheet';
 import { cornerWarnings } from '../../../core/corner/warnings';
 import type Database from 'better-sqlite3';
 import { setupRevisionById, setupRevisionList } from '../../../db/queries/setup-revision';
 import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';
+import {
+  cornerDampersResolve,
+  setupSheetResolve,
+  type CornerDamperRef,
+  type CornerDamperResolved,
+} from '../../../db/damper-resolve';
 import { setupRevisionResolve, setupSave, setupSheetRead } from '../../../db/setup-store';
 import { vehicleResolve } from '../../../db/vehicle-ref';
 import type { ApiContext } from '../context';
@@ -19,15 +28,41 @@ import { revisionListViewOf, revisionViewOf } from '../record-views';
 
 type CornerWarning = HandlerOutput<'setupShow'>['warnings'][number];
 
-/** The model's warnings for each corner of a sheet, tagged with the corner. */
-function sheetWarnings(sheet: SetupSheet, units: UnitSystem): CornerWarning[] {
+type CornerDamper = HandlerOutput<'setupShow'>['dampers'][number];
+
+/**
+ * The model's warnings for each corner of a sheet whose damper curves are resolved, tagged
+ * with the corner; first, where the entered damper curve disagrees with the bench's.
+ */
+function sheetWarnings(
+  resolved: { sheet: SetupSheet; dampers: Record<CornerPosition, Pick<CornerDamperResolved, 'warning'>> },
+  units: UnitSystem,
+): CornerWarning[] {
   return CORNER_POSITIONS.flatMap((p) => {
-    const c = sheet.corners[p].analysis;
-    return cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c)), undefined, units).map((w) => ({
+    const c = resolved.sheet.corners[p].analysis;
+    const own = resolved.dampers[p].warning;
+    return [
+      ...(own ? [own] : []),
+      ...cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c)), undefined, units),
+    ].map((w) => ({
       position: p,
       ...w,
     }));
   });
+}
+
+/** A resolved corner damper as the contract gives it: the source, the curve (SI file form), the warning. */
+function cornerDamperOf(
+  p: CornerPosition,
+  r: Omit<CornerDamperResolved, 'analysis'>,
+  analysis: SetupSheet['corners'][CornerPosition]['analysis'],
+): CornerDamper {
+  return {
+    position: p,
+    source: r.source,
+    curve: damperCurveToFile(analysis.damper, 'si'),
+    warning: r.warning,
+  };
 }
 
 function parentNumberOf(db: Database.Database, r: SetupRevisionRow): number | null {
@@ -85,16 +120,21 @@ export function setupShowHandler(
   const v = vehicleResolve(store.db, input.vehicle);
   const r = setupRevisionResolve(store.db, v, input.revision);
   const sheet = setupSheetRead(store.db, r);
+  // The figures use the damper curve each corner runs at its clicks; the file keeps what was entered.
+  const resolved = setupSheetResolve(store.db, sheet);
   const figures = {} as HandlerOutput<'setupShow'>['figures'];
   for (const p of CORNER_POSITIONS) {
-    figures[p] = headlineFiguresOf(cornerRideFigures(sheet.corners[p].analysis));
+    figures[p] = headlineFiguresOf(cornerRideFigures(resolved.sheet.corners[p].analysis));
   }
   return {
     vehicle: { id: v.id, name: v.name },
     revision: revisionViewOf(r, parentNumberOf(store.db, r)),
     file: setupFileWrite({ vehicle: v.name, basedOnRevision: r.number, sheet }, input.units),
     figures,
-    warnings: sheetWarnings(sheet, input.units),
+    dampers: CORNER_POSITIONS.map((p) =>
+      cornerDamperOf(p, resolved.dampers[p], resolved.sheet.corners[p].analysis),
+    ),
+    warnings: sheetWarnings(resolved, input.units),
     caution: CAUTION_TEXT,
   };
 }
@@ -125,13 +165,44 @@ export function setupDiffHandler(
   const b = revisionOf(db, input.b, 'b');
   const sa = setupSheetRead(db, a.r);
   const sb = setupSheetRead(db, b.r);
-  const diff = setupDiff(sa, sb, input.units);
+  // Fields as entered; figures with the damper curve each corner runs (a click change moves them).
+  const fields = setupDiff(sa, sb, input.units).fields;
+  const ra = setupSheetResolve(db, sa);
+  const rb = setupSheetResolve(db, sb);
+  const figures = setupDiff(ra.sheet, rb.sheet, input.units).figures;
   return {
     a: { vehicle: a.v.name, revision: a.r.number, name: a.r.name },
     b: { vehicle: b.v.name, revision: b.r.number, name: b.r.name },
-    fields: diff.fields,
-    figures: diff.figures.map((f) => ({ ...f, ...SETUP_FIGURE_LABELS[f.figure] })),
-    warnings: sheetWarnings(sb, input.units),
+    fields,
+    figures: figures.map((f) => ({ ...f, ...SETUP_FIGURE_LABELS[f.figure] })),
+    warnings: sheetWarnings(rb, input.units),
     caution: CAUTION_TEXT,
+  };
+}
+
+/**
+ * Handler `setupDampers`: which damper curve each corner being edited runs — the bench's at
+ * its clicks (measured or interpolated), or the entered one — with the source and the
+ * warning when they disagree. Reads only; a corner that does not read is named by its field.
+ */
+export function setupDampersHandler(
+  input: HandlerParsedInput<'setupDampers'>,
+  { store }: ApiContext,
+): HandlerOutput<'setupDampers'> {
+  const refs: Record<string, CornerDamperRef> = {};
+  for (const c of input.corners) {
+    const at = `corners.${c.position}`;
+    refs[c.position] = {
+      analysis: cornerInputParse(c.corner, `${at}.corner`),
+      damperUnit: c.damperUnit,
+      clicks: clickSettingsParse(c.clicks, `${at}.clicks`),
+    };
+  }
+  const resolved = cornerDampersResolve(store.db, refs);
+  return {
+    dampers: input.corners.map((c) => {
+      const r = resolved[c.position] as CornerDamperResolved;
+      return cornerDamperOf(c.position, r, r.analysis);
+    }),
   };
 }

@@ -19,6 +19,7 @@ import {
   VALVING_TARGET_KEYS,
   VALVING_TARGET_SPECS,
 } from '../../../core/valving/valving-targets';
+import { setupSheetResolve } from '../../../db/damper-resolve';
 import { damperUnitResolve } from '../../../db/damper-units';
 import { benchRunListOfDamper } from '../../../db/queries/bench-run';
 import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';
@@ -221,7 +222,7 @@ export async function valvingChooseHandler(
 
 /**
  * Handler `setupCompare`: two revisions side by side on a preset's scenario — per corner the
- * headline figures of each (its damper as the revision enters it), the change, the targets
+ * headline figures of each (its damper as the corner runs it at its clicks), the change, the targets
  * each meets, the model's warnings — with the front/rear balance and the cautions.
  */
 export function setupCompareHandler(
@@ -231,7 +232,14 @@ export function setupCompareHandler(
   const settings = valvingSettingsOf(input.preset, input);
   const a = revisionOf(store.db, input.a, 'a');
   const b = revisionOf(store.db, input.b, 'b');
-  const compared = valvingCompare(a.sheet, b.sheet, settings.scenario, settings.targets, input.units);
+  // Each corner runs the damper curve of its clicks (db/damper-resolve.ts), as on every screen.
+  const compared = valvingCompare(
+    setupSheetResolve(store.db, a.sheet).sheet,
+    setupSheetResolve(store.db, b.sheet).sheet,
+    settings.scenario,
+    settings.targets,
+    input.units,
+  );
   return {
     a: { vehicle: a.v.name, revision: a.r.number, name: a.r.name },
     b: { vehicle: b.v.name, revision: b.r.number, name: b.r.name },

@@ -23,10 +23,11 @@ import { unitSystemParse } from './analyze';
 
 export const COMPARE_USAGE = `rideledger [--db FILE] compare VEHICLE@A [VEHICLE@B] [--road CLASS --speed SPEED] [options] [--json]
 
-  The track-day sheet: two revisions side by side, corner by corner, each with its damper as
-  the revision enters it — ride and body-mode figures, ζ, the random road, the bump and the
-  curb on the nonlinear quarter car — with the change, the targets each meets and misses,
-  the model's warnings and the front/rear balance. With one revision: against its parent.
+  The track-day sheet: two revisions side by side, corner by corner, each damper at its
+  clicks (the bench's curve there, else the one entered) — ride and body-mode figures, ζ,
+  the random road, the bump and the curb on the nonlinear quarter car — with the change,
+  the targets each meets and misses, the model's warnings and the front/rear balance.
+  With one revision: against its parent.
   With --vehicle, revisions may be plain numbers: compare 3 5 --vehicle Coupe.
 
   --preset NAME      the scenario and targets (default track-day; choose --presets lists them)

@@ -25,8 +25,10 @@ rideledger [--db FILE] setup diff VEHICLE@A [VEHICLE@B] [--vehicle NAME] [--unit
            ever overwritten. The parent is the newest revision, or the file's
            "basedOnRevision", or --based-on N. The line saying what changed is written in
            --units (the sheet itself is stored SI); a copy of the parent is refused.
-  show     a revision (the newest without @N) with each corner's ride figures; --file prints
-           it as a setup file, --out FILE writes that file (edit it and save it again).
+  show     a revision (the newest without @N) with each corner's ride figures, each damper
+           at its clicks: the bench's curve there (a run, or between measured clicks), else
+           the curve entered, and where each comes from; --file prints it as a setup file,
+           --out FILE writes that file (edit it and save it again).
   history  every revision with date, event, name and what changed.
   diff     every changed field with old and new value, and the change of each corner's ride
            frequency, ζ bump and rebound and wheel hop. With one revision: against its parent.
@@ -50,15 +52,17 @@ function cornerRows(corners: Record<string, SetupCorner>, system: UnitSystem): s
     row('tyre rate', (c) => q(c.analysis.tireRate, 'stiffness', system)),
     row('damper unit', (c) => c.damperUnit || '—'),
     row('clicks', (c) => clickSettingsText(c.clicks) || '—'),
-    row('bump damping', (c) => q(damperDirectionSlopes(c.analysis.damper.bump).lowSpeed, 'damping', system)),
-    row('rebound damping', (c) =>
+    row('bump damping (entered)', (c) =>
+      q(damperDirectionSlopes(c.analysis.damper.bump).lowSpeed, 'damping', system),
+    ),
+    row('rebound damping (entered)', (c) =>
       q(damperDirectionSlopes(c.analysis.damper.rebound).lowSpeed, 'damping', system),
     ),
     row('bump-stop gap', (c) => opt(c.analysis.bumpStop?.gap, (v) => q(v, 'length', system))),
     row('ride height', (c) => opt(c.rideHeight, (v) => q(v, 'length', system))),
     row('cold pressure', (c) => opt(c.tirePressureCold, (v) => q(v, 'pressure', system))),
     row('camber', (c) => opt(c.camber, (v) => q(v, 'angle', system))),
-    row('toe (+ in)', (c) =>
+    row('toe (toe-in +)', (c) =>
       c.toe
         ? q(
             c.toe.value,
@@ -117,6 +121,9 @@ function showHuman(out: HandlerOutput<'setupShow'>, system: UnitSystem): string 
       ['ζ rebound', ...CORNER_POSITIONS.map((p) => numberFormat(out.figures[p].dampingRatio.rebound, 3))],
     ]),
   ];
+  lines.push('', 'Damper curves the figures use');
+  for (const d of out.dampers)
+    lines.push(textWrap(`${d.position}: ${d.source.text}`, 96, '    ').replace(/^ {4}/, '  '));
   if (sheet.notes) lines.push('', textWrap(`Notes: ${sheet.notes}`, 96));
   lines.push(...warningLines(out.warnings, 'Warnings'), '', textWrap(`Caution: ${out.caution}`, 96), '');
   return lines.join('\n');

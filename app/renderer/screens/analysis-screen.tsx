@@ -7,7 +7,6 @@ import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
 import {
   ROAD_CLASSES,
-  analysisCornersOf,
   analysisFigureGroups,
   analysisOptionTextsConvert,
   analysisOptionTextsDefault,
@@ -20,6 +19,7 @@ import {
 } from '../analysis-model';
 import { AnalysisCancelled, analysisRun } from '../analysis-run';
 import { BarPlot } from '../components/bar-plot';
+import { revisionCornersOf } from '../revision-dampers';
 import { CautionLine, WarningList } from '../components/caution';
 import { LinePlot } from '../components/plot';
 import { RevisionPicker } from '../components/revision-pick';
@@ -195,7 +195,7 @@ export function AnalysisScreen() {
         if (gone) return;
         try {
           setResult((old) => (old && old.pick === pick ? old : null));
-          setShown({ pick, revision: r.revision, corners: analysisCornersOf(r.file) });
+          setShown({ pick, revision: r.revision, corners: revisionCornersOf(r) });
         } catch (e) {
           setLoadError(e);
         }

@@ -2,7 +2,6 @@ import { useEffect, useId, useMemo, useState } from 'react';
 import { cornerQuarterCar } from '../../../core/corner/corner';
 import { eventBump } from '../../../core/events/event';
 import { frequencyResponseGrid, frequencyResponseMagnitudeAt } from '../../../core/corner/frequency-response';
-import { setupFileParse } from '../../../core/setup/setup-file';
 import type { CornerPosition, SetupSheet } from '../../../core/setup/setup-sheet';
 import { eventSimulate } from '../../../core/events/simulate';
 import {
@@ -21,6 +20,7 @@ import {
 import type { ValvingTargets } from '../../../core/valving/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
+import { revisionSheetOf } from '../revision-dampers';
 import { useApp, type RevisionPick } from '../app-context';
 import { CornerChoice, PresetChoice } from '../components/choices';
 import { CautionLine, WarningList } from '../components/caution';
@@ -82,7 +82,7 @@ export function CompareScreen() {
             revision: pick.revision,
             units: 'si',
           });
-          return { pick, name: r.revision.name, sheet: setupFileParse(r.file).sheet };
+          return { pick, name: r.revision.name, sheet: revisionSheetOf(r) };
         }),
       );
       const [first, ...rest] = picks;

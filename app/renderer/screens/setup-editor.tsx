@@ -1,393 +1,82 @@
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import { CAUTION_TEXT } from '../../../core/safety/caution';
-import { cornerQuarterCar, cornerRideFigures, type CornerFigures } from '../../../core/corner/corner';
-import { modesOf, type Modes } from '../../../core/corner/modal';
+import { useEffect, useMemo, useState } from 'react';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
-import { numberFormat, quantityFormat } from '../../../core/units/units';
-import { VALVING_FLAT_RIDE } from '../../../core/valving/valving-rank';
-import { cornerWarnings, type ModelWarning } from '../../../core/corner/warnings';
-import { apiCall } from '../api-client';
+import { ApiCallError, apiCall } from '../api-client';
 import { useApp } from '../app-context';
-import { WarningList } from '../components/caution';
 import { ErrorLine } from '../components/status';
 import { menuCommandsListen, pagePrint } from '../native';
-import {
-  CORNER_FIELDS,
-  TOP_FIELDS,
-  damperDirectionTabulated,
-  fieldUnitLabel,
-  setupFormBlank,
-  setupFormConvert,
-  setupFormCorner,
-  setupFormFromFile,
-  setupFormProblems,
-  setupFormSet,
-  setupFormToFile,
-  type FieldSpec,
-  type SetupForm,
-} from '../setup-form';
+import { setupFieldLabel, setupProblemText } from '../setup-field-words';
+import { TOP_FIELDS, formFields } from '../setup-form';
+import { CornerCard } from './setup-sheet/corner-card';
+import { axleFrequency, cornerLiveOf, type CornerLive } from './setup-sheet/corner-figures';
+import { DraftNotice } from './setup-sheet/draft-notice';
+import { PrintSheet } from './setup-sheet/print-sheet';
+import { RideBalance } from './setup-sheet/ride-balance';
+import { SheetField } from './setup-sheet/sheet-field';
+import { useCornerDampers } from './setup-sheet/use-corner-dampers';
+import { useSheetEdit } from './setup-sheet/use-sheet-edit';
 
-const CORNER_NAMES: Record<CornerPosition, string> = {
-  FL: 'Front left',
-  FR: 'Front right',
-  RL: 'Rear left',
-  RR: 'Rear right',
-};
+/** Least time the printable sheet stays on screen (ms). */
+const PRINT_VIEW_MS = 1500;
+/** Longest wait for the damper curves' sources before printing without them (ms). */
+const PRINT_WAIT_MS = 3000;
 
-/** The usual flat-ride choice: rear ride frequency 10–20 % above the front [trade]. */
-const FLAT_RIDE = VALVING_FLAT_RIDE;
-
-type Draft = { form: SetupForm; basedOnRevision?: number; at: string };
-const draftKey = (vehicle: string) => `draft:${vehicle}`;
-
-type Live = { figures: CornerFigures; modes: Modes; warnings: ModelWarning[] } | { error: string };
-
-/** A corner's live figures and warnings, the warnings written in the form's unit system. */
-function liveFigures(form: SetupForm, p: CornerPosition): Live {
-  const r = setupFormCorner(form, p);
-  if ('error' in r) return { error: r.error.message.replace(`corners.${p}.corner.`, '') };
-  const figures = cornerRideFigures(r.corner);
-  const modes = modesOf(cornerQuarterCar(r.corner));
-  return { figures, modes, warnings: cornerWarnings(figures, modes, undefined, form.system) };
-}
-
-function Field(props: {
-  path: string;
-  spec: FieldSpec;
-  form: SetupForm;
-  problem: string | undefined;
-  onChange: (path: string, text: string) => void;
-  idPrefix: string;
-  list?: string;
-}) {
-  const { path, spec, form } = props;
-  const id = `${props.idPrefix}-${path.replace(/[^A-Za-z0-9]+/g, '-')}`;
-  const unit = fieldUnitLabel(spec.kind, form.system);
-  const value = form.values[path] ?? '';
-  const errorId = `${id}-error`;
-  if (spec.kind === 'notes') {
+/** A failure from the store in the sheet's words: the field by its label, never its key. */
+function SheetErrorLine(props: { error: unknown }) {
+  const e = props.error;
+  if (e instanceof ApiCallError && e.field) {
+    const problem = e.message.startsWith(`${e.field}: `) ? e.message.slice(e.field.length + 2) : e.message;
+    const text = setupProblemText(e.field, problem, true);
     return (
-      <div className="field wide">
-        <label htmlFor={id}>{spec.label}</label>
-        <textarea id={id} rows={2} value={value} onChange={(e) => props.onChange(path, e.target.value)} />
-      </div>
-    );
-  }
-  const wide = spec.kind === 'text' || spec.kind === 'date';
-  return (
-    <div className={wide ? 'field wide' : 'field'}>
-      <label htmlFor={id}>
-        {spec.label}
-        {spec.required ? ' *' : ''}
-      </label>
-      <input
-        id={id}
-        name={path}
-        value={value}
-        inputMode={wide || spec.kind === 'toe' ? 'text' : 'decimal'}
-        placeholder={spec.kind === 'date' ? 'YYYY-MM-DD' : undefined}
-        aria-invalid={props.problem ? true : undefined}
-        aria-describedby={props.problem ? errorId : undefined}
-        list={props.list}
-        onChange={(e) => props.onChange(path, e.target.value)}
-      />
-      {wide ? null : <span className="unit">{unit}</span>}
-      {props.problem ? (
-        <span className="error-text" id={errorId} role="alert">
-          {props.problem}
-        </span>
-      ) : null}
-    </div>
-  );
-}
-
-function LivePanel(props: { live: Live; position: CornerPosition }) {
-  const { units } = useApp();
-  const l = props.live;
-  if ('error' in l) {
-    return (
-      <div className="live" aria-label={`${props.position} live figures`}>
-        <p className="muted">Figures appear when the corner reads: {l.error}</p>
-      </div>
-    );
-  }
-  const f = l.figures;
-  return (
-    <div
-      className="live"
-      aria-label={`${props.position} live figures`}
-      data-testid={`live-${props.position}`}
-    >
-      <dl>
-        <dt>Wheel rate</dt>
-        <dd>{quantityFormat(f.wheelRate, 'stiffness', units)}</dd>
-        <dt>Ride frequency</dt>
-        <dd data-figure="rideFrequencyHz">{numberFormat(f.rideFrequencyHz, 2)} Hz</dd>
-        <dt>Wheel hop</dt>
-        <dd data-figure="wheelHopFrequencyHz">{numberFormat(f.wheelHopFrequencyHz, 1)} Hz</dd>
-        <dt>ζ bump / rebound</dt>
-        <dd data-figure="dampingRatio">
-          {numberFormat(f.dampingRatio.bump, 2)} / {numberFormat(f.dampingRatio.rebound, 2)}
-        </dd>
-        <dt>ζ high speed b / r</dt>
-        <dd>
-          {numberFormat(f.dampingRatio.bumpHighSpeed, 2)} / {numberFormat(f.dampingRatio.reboundHighSpeed, 2)}
-        </dd>
-        <dt>Class (bump, rebound)</dt>
-        <dd>
-          {f.dampingClass.bump}, {f.dampingClass.rebound}
-        </dd>
-        <dt>Body mode</dt>
-        <dd>
-          {l.modes.body
-            ? `${numberFormat(l.modes.body.frequencyHz, 2)} Hz, ζ ${numberFormat(l.modes.body.dampingRatio, 2)}`
-            : 'overdamped'}
-        </dd>
-      </dl>
-      <WarningList warnings={l.warnings} label={`${props.position} warnings`} />
-    </div>
-  );
-}
-
-/** Average ride frequency of an axle, when both its corners read. */
-function axleFrequency(
-  live: Record<CornerPosition, Live>,
-  a: CornerPosition,
-  b: CornerPosition,
-): number | null {
-  const x = live[a];
-  const y = live[b];
-  if ('error' in x || 'error' in y) return null;
-  return (x.figures.rideFrequencyHz + y.figures.rideFrequencyHz) / 2;
-}
-
-/** The printable sheet: every field and the headline figures, no inputs. */
-function PrintSheet(props: { form: SetupForm; vehicle: string; live: Record<CornerPosition, Live> }) {
-  const { form } = props;
-  const v = (path: string) => form.values[path] ?? '';
-  return (
-    <section className="print-sheet" aria-label="Setup sheet for printing">
-      <h2>
-        {props.vehicle} — {v('name')}
-      </h2>
-      <p>
-        {TOP_FIELDS.filter((f) => f.key !== 'name')
-          .map(
-            (f) =>
-              `${f.label}: ${v(f.key) || '—'}${v(f.key) && fieldUnitLabel(f.kind, form.system) ? ` ${fieldUnitLabel(f.kind, form.system)}` : ''}`,
-          )
-          .join(' · ')}
+      <p className="status error" role="alert">
+        {text === problem ? `${setupFieldLabel(e.field, true)}: ${problem}` : text}
       </p>
-      <table className="figures">
-        <thead>
-          <tr>
-            <th scope="col">Field</th>
-            {CORNER_POSITIONS.map((p) => (
-              <th scope="col" key={p}>
-                {p}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {CORNER_FIELDS.map((f) => (
-            <tr key={f.key}>
-              <td>
-                {f.label}{' '}
-                {fieldUnitLabel(f.kind, form.system) ? `(${fieldUnitLabel(f.kind, form.system)})` : ''}
-              </td>
-              {CORNER_POSITIONS.map((p) => (
-                <td key={p}>{v(`corners.${p}.${f.key}`) || '—'}</td>
-              ))}
-            </tr>
-          ))}
-          <tr>
-            <td>Ride frequency (Hz)</td>
-            {CORNER_POSITIONS.map((p) => {
-              const l = props.live[p];
-              return <td key={p}>{'error' in l ? '—' : numberFormat(l.figures.rideFrequencyHz, 2)}</td>;
-            })}
-          </tr>
-          <tr>
-            <td>ζ bump / rebound</td>
-            {CORNER_POSITIONS.map((p) => {
-              const l = props.live[p];
-              return (
-                <td key={p}>
-                  {'error' in l
-                    ? '—'
-                    : `${numberFormat(l.figures.dampingRatio.bump, 2)} / ${numberFormat(l.figures.dampingRatio.rebound, 2)}`}
-                </td>
-              );
-            })}
-          </tr>
-        </tbody>
-      </table>
-      <p className="muted">Figures from RideLedger’s simplified model. {CAUTION_TEXT}</p>
-    </section>
-  );
+    );
+  }
+  return <ErrorLine error={e} />;
+}
+
+/** What the sheet holds, in words: which revision it starts from, and whether it is saved. */
+function revisionTextOf(basedOn: number | undefined, name: string, dirty: boolean): string {
+  if (basedOn === undefined) return 'First setup, not saved yet';
+  const called = name ? ` “${name}”` : '';
+  return dirty
+    ? `Unsaved changes to a new revision after #${basedOn}${called}`
+    : `Revision #${basedOn}${called}`;
 }
 
 /**
  * The setup sheet: four corners side by side and the vehicle fields, validated as you type,
- * with each corner's headline figures computed here by core. Save makes a new revision;
- * unsaved changes are kept as a draft with the shop's data.
+ * with each corner's headline figures computed with the damper curve it runs (the bench's at
+ * its clicks, or the one entered: the API says which). Save makes a new revision, and the
+ * sheet then edits the next one after it; unsaved changes are kept as a draft with the shop's data.
  */
 export function SetupEditor() {
   const app = useApp();
   const open = app.sheet;
-  const [form, setForm] = useState<SetupForm | null>(null);
-  const [basedOn, setBasedOn] = useState<number | undefined>(undefined);
-  const [dirty, setDirty] = useState(false);
-  const [error, setError] = useState<unknown>(null);
-  const [message, setMessage] = useState('');
-  const [draftOffer, setDraftOffer] = useState<Draft | null>(null);
+  const sheet = useSheetEdit(open);
+  const { form, basedOn, dirty } = sheet;
   const [printView, setPrintView] = useState(false);
   const [dampers, setDampers] = useState<string[]>([]);
-  const history = useRef<{ stack: SetupForm[]; at: number; lastPath: string; lastTime: number }>({
-    stack: [],
-    at: -1,
-    lastPath: '',
-    lastTime: 0,
-  });
+  const curves = useCornerDampers(form, app.dataVersion);
 
-  // Load the revision (or a blank sheet), then look for a draft left unsaved.
   useEffect(() => {
-    if (!open) return;
     let gone = false;
-    setForm(null);
-    setMessage('');
-    setDirty(false);
-    (async () => {
-      let f: SetupForm;
-      if (open.fromRevision !== undefined) {
-        const r = await apiCall('setupShow', {
-          vehicle: open.vehicle,
-          revision: open.fromRevision,
-          units: app.units,
-        });
-        f = setupFormFromFile(r.file, app.units);
-      } else {
-        f = setupFormBlank(app.units, '');
-      }
-      const draft = await apiCall('settingGet', { key: draftKey(open.vehicle) });
-      if (gone) return;
-      history.current = { stack: [f], at: 0, lastPath: '', lastTime: 0 };
-      setForm(f);
-      setBasedOn(open.fromRevision);
-      setDraftOffer(draft.value ? (draft.value as Draft) : null);
-      const list = await apiCall('benchList', {});
-      if (!gone) setDampers(list.dampers.map((d) => d.label));
-    })().catch(setError);
+    apiCall('benchList', {}).then(
+      (list) => !gone && setDampers(list.dampers.map((d) => d.label)),
+      () => {},
+    );
     return () => {
       gone = true;
     };
-    // Only a new sheet reloads; the unit system is applied by conversion below.
-  }, [open]);
+  }, [app.dataVersion]);
 
-  // Units switch: convert in place.
-  useEffect(() => {
-    setForm((f) => (f && f.system !== app.units ? setupFormConvert(f, app.units) : f));
-  }, [app.units]);
-
-  // Keep a draft of unsaved changes with the shop's data, a moment after each change.
-  useEffect(() => {
-    if (!dirty || !form || !open) return;
-    const t = setTimeout(() => {
-      const draft: Draft = {
-        form,
-        ...(basedOn !== undefined ? { basedOnRevision: basedOn } : {}),
-        at: new Date().toISOString(),
-      };
-      void apiCall('settingSet', { key: draftKey(open.vehicle), value: draft }).catch(setError);
-    }, 600);
-    return () => clearTimeout(t);
-  }, [form, dirty, basedOn, open]);
-
-  useEffect(() => {
-    if (!dirty) return;
-    const warn = (e: BeforeUnloadEvent) => {
-      e.preventDefault();
-    };
-    window.addEventListener('beforeunload', warn);
-    return () => window.removeEventListener('beforeunload', warn);
-  }, [dirty]);
-
-  const change = useCallback((path: string, text: string) => {
-    setForm((f) => {
-      if (!f) return f;
-      const next = setupFormSet(f, path, text);
-      const h = history.current;
-      const now = Date.now();
-      // Typing in one field is one step of undo.
-      if (h.lastPath === path && now - h.lastTime < 1500) h.stack[h.at] = next;
-      else {
-        h.stack = [...h.stack.slice(0, h.at + 1), next];
-        h.at = h.stack.length - 1;
-      }
-      h.lastPath = path;
-      h.lastTime = now;
-      return next;
-    });
-    setDirty(true);
-    setMessage('');
-  }, []);
-
-  const step = useCallback(
-    (by: -1 | 1) => {
-      const h = history.current;
-      const at = h.at + by;
-      const f = h.stack[at];
-      if (!f) return;
-      h.at = at;
-      h.lastPath = '';
-      setForm(f.system === app.units ? f : setupFormConvert(f, app.units));
-      setDirty(true);
-    },
-    [app.units],
-  );
-
-  const problems = useMemo(() => (form ? setupFormProblems(form) : new Map<string, string>()), [form]);
   const live = useMemo(() => {
-    const out = {} as Record<CornerPosition, Live>;
-    if (form) for (const p of CORNER_POSITIONS) out[p] = liveFigures(form, p);
+    const out = {} as Record<CornerPosition, CornerLive>;
+    if (form) for (const p of CORNER_POSITIONS) out[p] = cornerLiveOf(form, p, curves[p]);
     return out;
-  }, [form]);
+  }, [form, curves]);
 
-  const save = useCallback(async () => {
-    if (!form || !open) return;
-    // An untouched sheet would only add a revision that says "no changes".
-    if (!dirty && basedOn !== undefined) {
-      setMessage(`Nothing to save: the sheet is as revision #${basedOn} has it.`);
-      return;
-    }
-    if (problems.size > 0) {
-      setMessage(
-        `Not saved: ${problems.size} field${problems.size === 1 ? ' needs' : 's need'} attention (marked).`,
-      );
-      return;
-    }
-    setError(null);
-    try {
-      const r = await apiCall('setupSave', {
-        file: setupFormToFile(form),
-        vehicle: open.vehicle,
-        ...(basedOn !== undefined ? { basedOnRevision: basedOn } : {}),
-        units: form.system,
-      });
-      await apiCall('settingSet', { key: draftKey(open.vehicle), value: null });
-      setBasedOn(r.revision.number);
-      setDirty(false);
-      setDraftOffer(null);
-      setMessage(
-        `Saved as revision #${r.revision.number}${r.branched ? ` (a branch from #${r.revision.parent})` : ''}: ${r.revision.summary}`,
-      );
-      app.dataChanged();
-    } catch (e) {
-      setError(e);
-    }
-  }, [form, open, basedOn, dirty, problems, app]);
-
+  const { save, step } = sheet;
   useEffect(
     () =>
       menuCommandsListen((c) => {
@@ -399,15 +88,26 @@ export function SetupEditor() {
     [save, step],
   );
 
+  // The printable sheet is drawn — once each curve's source is known, or after a wait — printed, and
+  // stays on screen a moment (a quick PDF save would flash it).
+  const asking = Object.values(live).some((l) => !('error' in l) && l.source.kind === 'asking');
   useEffect(() => {
     if (!printView) return;
-    const t = setTimeout(() => {
-      void pagePrint(`${open?.vehicle ?? 'setup'} ${form?.values.name ?? ''}.pdf`.trim()).finally(() =>
-        setPrintView(false),
-      );
-    }, 50);
-    return () => clearTimeout(t);
-  }, [printView, open, form]);
+    const shownAt = Date.now();
+    let back: ReturnType<typeof setTimeout> | undefined;
+    const t = setTimeout(
+      () => {
+        void pagePrint(`${open?.vehicle ?? 'setup'} ${form?.values.name ?? ''}.pdf`.trim()).finally(() => {
+          back = setTimeout(() => setPrintView(false), Math.max(0, PRINT_VIEW_MS - (Date.now() - shownAt)));
+        });
+      },
+      asking ? PRINT_WAIT_MS : 50,
+    );
+    return () => {
+      clearTimeout(t);
+      if (back) clearTimeout(back);
+    };
+  }, [printView, asking, open, form]);
 
   if (!open) {
     return (
@@ -420,15 +120,16 @@ export function SetupEditor() {
       </section>
     );
   }
-  if (error && !form) return <ErrorLine error={error} />;
+  if (sheet.error && !form) return <SheetErrorLine error={sheet.error} />;
   if (!form) return <p>Loading the sheet…</p>;
 
-  const front = axleFrequency(live, 'FL', 'FR');
-  const rear = axleFrequency(live, 'RL', 'RR');
-  const ratio = front && rear ? rear / front : null;
-  const at = history.current;
+  const revisionText = revisionTextOf(basedOn, sheet.baseName, dirty);
+  if (printView)
+    return <PrintSheet form={form} vehicle={open.vehicle} revisionText={revisionText} live={live} />;
 
-  if (printView) return <PrintSheet form={form} vehicle={open.vehicle} live={live} />;
+  const at = sheet.history;
+  const placed = new Set(formFields(form).map((f) => f.path));
+  const unplaced = [...sheet.problems].filter(([path]) => !placed.has(path));
 
   return (
     <section aria-label="Setup sheet">
@@ -437,37 +138,17 @@ export function SetupEditor() {
         {basedOn !== undefined ? ` (new revision after #${basedOn})` : ' (first setup)'}
         {dirty ? ' • unsaved' : ''}
       </h2>
-      {draftOffer ? (
-        <div className="status" role="alert">
-          Unsaved changes from {new Date(draftOffer.at).toLocaleString()} were kept.{' '}
-          <button
-            type="button"
-            className="secondary"
-            onClick={() => {
-              setForm(
-                draftOffer.form.system === app.units
-                  ? draftOffer.form
-                  : setupFormConvert(draftOffer.form, app.units),
-              );
-              setBasedOn(draftOffer.basedOnRevision);
-              setDirty(true);
-              setDraftOffer(null);
-            }}
-          >
-            Restore them
-          </button>{' '}
-          <button
-            type="button"
-            className="secondary"
-            onClick={() => {
-              void apiCall('settingSet', { key: draftKey(open.vehicle), value: null });
-              setDraftOffer(null);
-            }}
-          >
-            Discard them
-          </button>
-        </div>
-      ) : null}
+      <p className="muted" data-testid="sheet-revision">
+        {basedOn === undefined
+          ? 'Editing the first setup of this vehicle.'
+          : `Editing a new revision after #${basedOn}${sheet.baseName ? ` “${sheet.baseName}”` : ''}; saving makes it the next revision.`}
+      </p>
+      <DraftNotice
+        offer={sheet.draftOffer}
+        restored={sheet.restored}
+        onRestore={sheet.restoreDraft}
+        onDiscard={sheet.discardDraft}
+      />
       <div className="toolbar">
         <button type="button" className="primary" onClick={() => void save()}>
           Save as new revision
@@ -487,10 +168,19 @@ export function SetupEditor() {
           Print sheet / PDF
         </button>
         <span role="status" aria-live="polite">
-          {message}
+          {sheet.message}
         </span>
       </div>
-      <ErrorLine error={error} />
+      <SheetErrorLine error={sheet.error} />
+      {unplaced.length > 0 ? (
+        <ul className="warning-list" aria-label="Problems of the sheet">
+          {unplaced.map(([path, problem]) => (
+            <li key={path}>
+              {/^corners\.(FL|FR|RL|RR)\./.exec(path)?.[1] ?? 'Vehicle'}: {problem}
+            </li>
+          ))}
+        </ul>
+      ) : null}
       <datalist id="damper-units">
         {dampers.map((d) => (
           <option key={d} value={d} />
@@ -500,62 +190,29 @@ export function SetupEditor() {
         <legend>Vehicle</legend>
         <div className="vehicle-fields">
           {TOP_FIELDS.map((spec) => (
-            <Field
+            <SheetField
               key={spec.key}
               path={spec.key}
               spec={spec}
               form={form}
-              problem={problems.get(spec.key)}
-              onChange={change}
+              problem={sheet.problems.get(spec.key)}
+              onChange={sheet.change}
               idPrefix="top"
             />
           ))}
         </div>
       </fieldset>
-      <p className="status" data-testid="balance">
-        Front/rear ride frequency:{' '}
-        {ratio && front && rear
-          ? `front ${numberFormat(front, 2)} Hz, rear ${numberFormat(rear, 2)} Hz, rear ÷ front ${numberFormat(ratio, 2)} — ${
-              ratio >= FLAT_RIDE.low && ratio <= FLAT_RIDE.high
-                ? 'within the usual flat-ride choice (rear 10–20 % above front)'
-                : ratio < FLAT_RIDE.low
-                  ? 'rear less than 10 % above front: the usual flat-ride choice is rear 10–20 % above, so that the car settles level after a bump'
-                  : 'rear more than 20 % above front: beyond the usual flat-ride choice of 10–20 %'
-            } (common practice).`
-          : 'appears when all four corners read.'}
-      </p>
+      <RideBalance front={axleFrequency(live, 'FL', 'FR')} rear={axleFrequency(live, 'RL', 'RR')} />
       <div className="corners">
         {CORNER_POSITIONS.map((p) => (
-          <div className="corner-card" key={p} aria-label={`${CORNER_NAMES[p]} (${p})`} role="group">
-            <h3>
-              {CORNER_NAMES[p]} ({p})
-            </h3>
-            {CORNER_FIELDS.map((spec) => {
-              const dir = /^corner\.damper\.(bump|rebound)\./.exec(spec.key)?.[1] as
-                'bump' | 'rebound' | undefined;
-              if (dir && damperDirectionTabulated(form, p, dir)) {
-                return spec.key.endsWith('lowSpeed') ? (
-                  <p key={spec.key} className="muted">
-                    {dir === 'bump' ? 'Bump' : 'Rebound'}: a tabulated bench curve (kept as loaded).
-                  </p>
-                ) : null;
-              }
-              const path = `corners.${p}.${spec.key}`;
-              return (
-                <Field
-                  key={spec.key}
-                  path={path}
-                  spec={spec}
-                  form={form}
-                  problem={problems.get(path)}
-                  onChange={change}
-                  idPrefix={p}
-                  {...(spec.key === 'damperUnit' ? { list: 'damper-units' } : {})}
-                />
-              );
-            })}
-            <LivePanel live={live[p]} position={p} />
-          </div>
+          <CornerCard
+            key={p}
+            position={p}
+            form={form}
+            problems={sheet.problems}
+            live={live[p]}
+            onChange={sheet.change}
+          />
         ))}
       </div>
     </section>
