@@ -36,12 +36,52 @@ describe('monotone cubic (Fritsch–Carlson)', () => {
     // (0,0), (1,1), (2,4): secants 1 and 3, equal cells → harmonic mean 2·1·3/(1+3) = 1.5 [calc]
     const c = cubicHermiteMonotone([0, 1, 2], [0, 1, 4]);
     expect(c.slope[1]).toBeCloseTo(1.5, 15);
-    // ends take the end secants, so the straight continuation joins smoothly
-    expect(c.slope[0]).toBe(1);
-    expect(c.slope[2]).toBe(3);
-    expect(cubicHermiteAt(c, 3)).toBe(7);
-    expect(cubicHermiteAt(c, 2.5, 1)).toBe(3);
-    expect(cubicHermiteAt(c, -1)).toBe(-1);
+    // [pub] Moler, Numerical Computing with MATLAB §3.4 (pchipend): d = ((2h1 + h2)δ1 − h1δ2)/(h1 + h2).
+    // Left: ((2 + 1)·1 − 1·3)/2 = 0 [calc]; right: ((2 + 1)·3 − 1·1)/2 = 4 [calc]
+    expect(c.slope[0]).toBe(0);
+    expect(c.slope[2]).toBe(4);
+    // the straight continuation carries the end slope: 4 + 4·1 = 8, −0 below zero [calc]
+    expect(cubicHermiteAt(c, 3)).toBe(8);
+    expect(cubicHermiteAt(c, 2.5, 1)).toBe(4);
+    expect(cubicHermiteAt(c, -1)).toBe(0);
+  });
+
+  it('takes the end slopes from the three-point formula of PCHIP, written out here', () => {
+    // [pub] Fritsch & Carlson 1980 / Moler, Numerical Computing with MATLAB §3.4, pchipend:
+    // d = ((2h1 + h2)δ1 − h1δ2)/(h1 + h2); d = 0 when sign(d) ≠ sign(δ1); d = 3δ1 when the
+    // secants change sign and |d| > |3δ1|. Written out again independently of core [calc].
+    const endSlope = (h1: number, h2: number, d1: number, d2: number) => {
+      const d = ((2 * h1 + h2) * d1 - h1 * d2) / (h1 + h2);
+      if (Math.sign(d) !== Math.sign(d1)) return 0;
+      if (Math.sign(d1) !== Math.sign(d2) && Math.abs(d) > 3 * Math.abs(d1)) return 3 * d1;
+      return d;
+    };
+    // A small progressive bump-stop table: x (mm) 0, 2, 5, 10 and force (N) 0, 100, 400, 1600.
+    const x = [0, 2, 5, 10];
+    const y = [0, 100, 400, 1600];
+    const c = cubicHermiteMonotone(x, y);
+    // δ = 50, 100, 240; h = 2, 3, 5.
+    // left: ((4 + 3)·50 − 2·100)/5 = 30 [calc]; right: ((10 + 3)·240 − 5·100)/8 = 327.5 [calc]
+    expect(c.slope[0]).toBeCloseTo(endSlope(2, 3, 50, 100), 12);
+    expect(c.slope[0]).toBeCloseTo(30, 12);
+    expect(c.slope[3]).toBeCloseTo(endSlope(5, 3, 240, 100), 12);
+    expect(c.slope[3]).toBeCloseTo(327.5, 12);
+    // Past the last point the force continues with that slope: 1600 + 327.5·2 = 2255 N [calc]
+    expect(cubicHermiteAt(c, 12)).toBeCloseTo(2255, 9);
+    // Data that turn at the end: (0, 0), (1, 3), (2, 2): δ = 3, −1; left ((2 + 1)·3 + 1)/2 = 5 ≤ 9 [calc];
+    // right: ((2 + 1)·(−1) − 3)/2 = −3, |−3| ≤ |3·(−1)| kept [calc]
+    const turn = cubicHermiteMonotone([0, 1, 2], [0, 3, 2]);
+    expect(turn.slope[0]).toBeCloseTo(endSlope(1, 1, 3, -1), 12);
+    expect(turn.slope[0]).toBeCloseTo(5, 12);
+    expect(turn.slope[2]).toBeCloseTo(-3, 12);
+    // A steep turn is limited to 3δ1: (0, 0), (1, 1), (1.1, 0): δ = 1, −10; h = 1, 0.1;
+    // d = ((2 + 0.1)·1 + 10)/1.1 = 11 > 3 → 3 [calc]
+    expect(cubicHermiteMonotone([0, 1, 1.1], [0, 1, 0]).slope[0]).toBeCloseTo(3, 12);
+    // The sign rule: (0, 0), (1, 1), (2, 5): d = ((2 + 1)·1 − 4)/2 = −0.5, sign differs → 0 [calc]
+    expect(cubicHermiteMonotone([0, 1, 2], [0, 1, 5]).slope[0]).toBe(0);
+    // Two knots: both slopes the secant.
+    const two = cubicHermiteMonotone([0, 2], [0, 6]);
+    expect([two.slope[0], two.slope[1]]).toEqual([3, 3]);
   });
 
   it('puts a zero slope at a local extremum, so the curve never overshoots it', () => {
@@ -99,8 +139,9 @@ describe('tabulated damper direction', () => {
     for (const p of (BENCH as { points: readonly DamperPoint[] }).points) {
       expect(damperDirectionForce(BENCH, p.velocity)).toBeCloseTo(p.force, 10);
     }
-    // Past 0.6 m/s the slope of the last segment: (850 − 620)/0.3 = 766.7 N·s/m [calc]
-    const slope = (850 - 620) / 0.3;
+    // Past 0.6 m/s the PCHIP end slope [pub] (Moler §3.4): δ1 = (850 − 620)/0.3, δ2 = (620 − 400)/0.2,
+    // ((2·0.3 + 0.2)·δ1 − 0.3·δ2)/0.5 = 566.7 N·s/m [calc]
+    const slope = ((0.8 * 230) / 0.3 - (0.3 * 220) / 0.2) / 0.5;
     expect(damperDirectionForce(BENCH, 1)).toBeCloseTo(850 + 0.4 * slope, 9);
     expect(damperDirectionDataLimit(BENCH)).toBe(0.6);
     expect(damperDirectionDataLimit({ kind: 'linear', coefficient: 1000 })).toBeNull();
