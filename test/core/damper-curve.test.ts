@@ -2,7 +2,6 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { cubicHermiteAt, cubicHermiteMonotone } from '../../core/cubic-hermite';
 import {
-  DAMPER_TABLE_LOW_SPEED_LIMIT,
   damperCurveFit,
   damperCurveParse,
   damperCurveToFile,
@@ -14,6 +13,8 @@ import {
   damperDirectionToFile,
   damperForce,
   damperShaftForce,
+  damperTablePointsOf,
+  damperTableSlopeCurve,
   type DamperDirectionCurve,
   type DamperPoint,
 } from '../../core/damper-curve';
@@ -147,16 +148,50 @@ describe('tabulated damper direction', () => {
     expect(damperDirectionDataLimit({ kind: 'linear', coefficient: 1000 })).toBeNull();
   });
 
-  it('gives the linear figures a low-speed slope to 0.05 m/s and a high-speed slope beyond', () => {
+  it('gives the linear figures the least-squares bilinear fit of the points, knee found from the data', () => {
     const s = damperDirectionSlopes(BENCH);
-    expect(DAMPER_TABLE_LOW_SPEED_LIMIT).toBe(0.05);
-    // [calc] F(0.05) = 280 N → 5600 N·s/m; (850 − 280)/(0.6 − 0.05) = 1036.4 N·s/m
-    expect(s.lowSpeed).toBeCloseTo(5600, 9);
-    expect(s.highSpeed).toBeCloseTo(570 / 0.55, 9);
-    expect(s.kneeSpeed).toBe(0.05);
-    // Data that stop before the limit give one slope, the secant to the last point.
+    // [calc] numpy lstsq of F = c_ls·min(v, k) + c_hs·max(v − k, 0) over a 200 001-knot scan and
+    // scipy's bounded minimize_scalar of the residual in k: c_ls = 5680, c_hs = 889.474 N·s/m,
+    // k = 0.068227 m/s (c_ls is then the fit through zero of the two points below the knee:
+    // (0.025·150 + 0.05·280)/(0.025² + 0.05²) = 5680 [calc]).
+    expect(s.lowSpeed).toBeCloseTo(5680, 4);
+    expect(s.highSpeed).toBeCloseTo(889.4737, 3);
+    expect(s.kneeSpeed as number).toBeCloseTo(0.068227, 5);
+    // The same numbers as the bench fit of the same points: one rule.
+    const fit = damperDirectionFit((BENCH as { points: readonly DamperPoint[] }).points).curve;
+    expect([s.lowSpeed, s.highSpeed, s.kneeSpeed]).toEqual([fit.lowSpeed, fit.highSpeed, fit.kneeSpeed]);
+    expect(damperTableSlopeCurve((BENCH as { points: readonly DamperPoint[] }).points)).toEqual(fit);
+    // One point: its secant, one straight line [calc].
     const short = damperDirectionSlopes({ kind: 'table', points: [{ velocity: 0.03, force: 90 }] });
-    expect(short).toEqual({ lowSpeed: 3000, highSpeed: 3000, kneeSpeed: null });
+    expect(short.lowSpeed).toBeCloseTo(3000, 9);
+    expect(short.highSpeed).toBeCloseTo(3000, 9);
+    expect(short.kneeSpeed).toBeNull();
+    // Two points: through both exactly, knee at the first: 90/0.03 = 3000, (150 − 90)/0.07 = 857.1 [calc].
+    const two = damperDirectionSlopes({
+      kind: 'table',
+      points: [
+        { velocity: 0.03, force: 90 },
+        { velocity: 0.1, force: 150 },
+      ],
+    });
+    expect(two.lowSpeed).toBeCloseTo(3000, 9);
+    expect(two.highSpeed).toBeCloseTo(60 / 0.07, 9);
+    expect(two.kneeSpeed).toBe(0.03);
+  });
+
+  it('makes measured points a table: rising speed, one averaged point per speed', () => {
+    expect(
+      damperTablePointsOf([
+        { velocity: 0.2, force: 500 },
+        { velocity: 0.05, force: 300 },
+        { velocity: 0.2, force: 520 },
+        { velocity: 0, force: 10 },
+        { velocity: 0.1, force: NaN },
+      ]),
+    ).toEqual([
+      { velocity: 0.05, force: 300 },
+      { velocity: 0.2, force: 510 },
+    ]);
   });
 
   it('signs the force by direction and adds the gas force only to the shaft force', () => {

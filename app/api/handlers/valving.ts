@@ -1,5 +1,4 @@
 import type Database from 'better-sqlite3';
-import type { BenchFit } from '../../../core/bench-fit';
 import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../../core/caution';
 import { InputError } from '../../../core/input-error';
 import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../../../core/setup-sheet';
@@ -7,8 +6,10 @@ import { valvingJobOf, valvingSettingsOf, type ValvingSettings } from '../../../
 import { valvingCompare } from '../../../core/valving-compare';
 import type { ValvingFigures } from '../../../core/valving-evaluate';
 import {
+  valvingCellSlopes,
   valvingCurvesOf,
   valvingMapOf,
+  valvingRunOf,
   type ValvingCurves,
   type ValvingRun,
 } from '../../../core/valving-map';
@@ -16,7 +17,8 @@ import { VALVING_PRESET_NAMES, VALVING_PRESETS } from '../../../core/valving-pre
 import { valvingBalanceOf, valvingRank } from '../../../core/valving-rank';
 import { VALVING_OBJECTIVE, VALVING_TARGET_KEYS, VALVING_TARGET_SPECS } from '../../../core/valving-targets';
 import { damperUnitResolve } from '../../../db/damper-units';
-import { benchRunListOfDamper } from '../../../db/queries/bench-run';
+import { benchPointsDecode } from '../../../db/bench-points';
+import { benchRunRowsOfDamper } from '../../../db/queries/bench-run';
 import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';
 import { clickSettingsOfColumns } from '../../../db/setup-rows';
 import { setupRevisionResolve, setupSheetRead } from '../../../db/setup-store';
@@ -25,17 +27,16 @@ import type { ApiContext } from '../context';
 import type { HandlerOutput, HandlerParsedInput } from '../contract';
 import { valvingSweepParallel } from '../valving-pool';
 
-/** A damper unit's bench runs as the map reads them: clicks and fitted curves. */
+/** A damper unit's bench runs as the map reads them: clicks and the measured tables of their points. */
 function valvingRunsOf(
   db: Database.Database,
   label: string,
   field: string,
 ): { label: string; runs: ValvingRun[] } {
   const unit = damperUnitResolve(db, label, field);
-  const runs = benchRunListOfDamper(db, unit.id).map((r) => {
-    const fit = JSON.parse(r.fit_json) as BenchFit;
-    return { id: r.id, clicks: clickSettingsOfColumns(r), bump: fit.bump, rebound: fit.rebound };
-  });
+  const runs = benchRunRowsOfDamper(db, unit.id).map((r) =>
+    valvingRunOf(r.id, clickSettingsOfColumns(r), benchPointsDecode(r.points)),
+  );
   return { label: unit.label, runs };
 }
 
@@ -127,6 +128,8 @@ export function valvingMapHandler(
     position: p,
     damper: label,
     ...map,
+    // The slopes each cell's curves give by the one rule; the tables stay in core.
+    cells: map.cells.map((c) => ({ ...c, damper: valvingCellSlopes(c.damper) })),
   };
 }
 
