@@ -13,7 +13,7 @@ import { modesOf, type Modes } from './modal';
 import { randomRoadResponse, type RandomRoadResponse } from './random-road';
 import { eventSimulate } from './simulate';
 import { stepResponseLinear, type StepResponse } from './step-response';
-import { cornerWarnings, type ModelWarning } from './warnings';
+import { cornerWarnings, randomRoadWarnings, type ModelWarning } from './warnings';
 
 /** Everything the analysis of one corner file gives, SI. */
 export type CornerAnalysis = {
@@ -57,7 +57,10 @@ export function cornerAnalyze(
     step,
     warnings: cornerWarnings(figures, modes, step, units),
   };
-  if (file.road) analysis.randomRoad = randomRoadResponse(quarterCar, file.road);
+  if (file.road) {
+    analysis.randomRoad = randomRoadResponse(quarterCar, file.road);
+    analysis.warnings.push(...randomRoadWarnings(analysis.randomRoad, file.road, units));
+  }
   if (file.bump) {
     const event = eventBump(file.bump);
     const metrics = eventSimulate(file.corner, event).metrics;
