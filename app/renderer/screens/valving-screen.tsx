@@ -295,7 +295,7 @@ function PickDetail(props: { pick: Pick; units: UnitSystem; title: string; kinds
             {p.sensitivity.map((s, i) => (
               <tr key={i}>
                 <td>{valvingStepText(s, p.clicks)}</td>
-                <td>{s.available ? clicksText(s.clicks) : 'beyond the measured range'}</td>
+                <td>{s.available ? clicksText(s.clicks) : `${clicksText(s.clicks)}: not measured`}</td>
                 <td>{s.score === null ? '—' : numberFormat(s.score, 3)}</td>
                 <td>{s.change?.zetaBump === null || !s.change ? '—' : numberFormat(s.change.zetaBump, 3)}</td>
                 <td>
