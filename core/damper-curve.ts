@@ -13,8 +13,8 @@ export type DamperPoint = { velocity: number; force: number };
  * - bilinear: F = c_ls·v up to the knee, then c_ls·v_knee + c_hs·(v − v_knee)
  *   (digressive when c_hs < c_ls, progressive when c_hs > c_ls)
  * - table: bench points, speed rising and force never falling, joined through (0, 0) by a
- *   monotone cubic (no overshoot between points) and continued as a straight line past the
- *   last point. Treat the points as immutable: the interpolant is built once per table.
+ *   monotone cubic (no overshoot between points; PCHIP end slopes, see cubic-hermite.ts) and
+ *   continued as a straight line with the end slope past the last point. Treat the points as immutable: the interpolant is built once per table.
  */
 export type DamperDirectionCurve =
   | { kind: 'linear'; coefficient: number }
