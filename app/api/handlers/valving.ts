@@ -18,7 +18,7 @@ import { valvingBalanceOf, valvingRank } from '../../../core/valving-rank';
 import { VALVING_OBJECTIVE, VALVING_TARGET_KEYS, VALVING_TARGET_SPECS } from '../../../core/valving-targets';
 import { damperUnitResolve } from '../../../db/damper-units';
 import { benchPointsDecode } from '../../../db/bench-points';
-import { benchRunRowsOfDamper } from '../../../db/queries/bench-run';
+import { benchRunsWithPointsOfDamper } from '../../../db/queries/bench-run';
 import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';
 import { clickSettingsOfColumns } from '../../../db/setup-rows';
 import { setupRevisionResolve, setupSheetRead } from '../../../db/setup-store';
@@ -34,7 +34,7 @@ function valvingRunsOf(
   field: string,
 ): { label: string; runs: ValvingRun[] } {
   const unit = damperUnitResolve(db, label, field);
-  const runs = benchRunRowsOfDamper(db, unit.id).map((r) =>
+  const runs = benchRunsWithPointsOfDamper(db, unit.id).map((r) =>
     valvingRunOf(r.id, clickSettingsOfColumns(r), benchPointsDecode(r.points)),
   );
   return { label: unit.label, runs };
