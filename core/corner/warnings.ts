@@ -1,5 +1,7 @@
 import type { CornerFigures } from './corner';
+import type { RoadSpec } from './corner-file';
 import type { Modes } from './modal';
+import type { RandomRoadResponse } from './random-road';
 import { STEP_HEIGHT, type StepResponse } from './step-response';
 import { quantityFormat, type UnitSystem } from '../units/units';
 
@@ -19,6 +21,12 @@ export const WARNING_BANDS = {
   wheelHopFrequencyHz: { low: 8, high: 20 },
   lowSpeedDampingRatio: { low: 0.15, high: 1.2 },
   unsprungRatio: { low: 0.05, high: 0.3 },
+  /**
+   * Dynamic tyre load RMS ÷ static load on a random road: above a half, the load falls to
+   * zero often (for a Gaussian load, below −2σ about one time in 44), so the tyre is barely in
+   * contact (common practice).
+   */
+  tireLoadRmsRatio: { high: 0.5 },
 } as const;
 
 const f2 = (x: number) => x.toFixed(2);
@@ -118,4 +126,25 @@ export function cornerWarnings(
     });
   }
   return out;
+}
+
+/**
+ * Warnings from a corner's random-road figures on `road`: dynamic tyre load RMS above
+ * WARNING_BANDS.tireLoadRmsRatio of the static load. Quantities written in `units`.
+ */
+export function randomRoadWarnings(
+  response: RandomRoadResponse,
+  road: RoadSpec,
+  units: UnitSystem = 'si',
+): ModelWarning[] {
+  const share = response.tireLoadRmsRatio;
+  const limit = WARNING_BANDS.tireLoadRmsRatio.high;
+  if (!(share > limit)) return [];
+  return [
+    {
+      code: 'tyre-load-rms-high',
+      field: 'road',
+      message: `On the class ${road.roadClass} road at ${quantityFormat(road.speed, 'speed', units)} the dynamic tyre load RMS is ${(100 * share).toFixed(0)} % of the static load, above ${(100 * limit).toFixed(0)} %: the tyre is barely in contact over much of the road and grip suffers; check the damping against the spring and tyre, and the road and speed chosen.`,
+    },
+  ];
 }

@@ -1,5 +1,11 @@
 import { benchPointsBinned, type BenchPoints } from './bench-trace';
-import { damperDirectionFit, type DamperDirectionFit, type DamperPoint } from './damper-curve';
+import {
+  damperDirectionFit,
+  damperTablePointsOf,
+  type DamperDirectionCurve,
+  type DamperDirectionFit,
+  type DamperPoint,
+} from './damper-curve';
 import { InputError } from '../units/input-error';
 import { quantityFormat, type UnitSystem } from '../units/units';
 
@@ -31,13 +37,22 @@ function directionFit(points: DamperPoint[], field: string): DamperDirectionFit 
   }
 }
 
+/** A bench run's curve of one direction: a table of its points. */
+export type BenchTable = Extract<DamperDirectionCurve, { kind: 'table' }>;
+
 /**
- * Fits a bench run's signed points (compression positive, m/s and N) with the bilinear
- * least-squares fit of `damperDirectionFit`, bump from the positive velocities, rebound
- * from the negative ones as magnitudes.
- * @throws InputError when neither direction has the 3 points a fit needs.
+ * A bench run's curves: each direction's points (binned averages for a run of more than
+ * BENCH_FIT_MAX_POINTS) as a table (damperTablePointsOf: rising speed, one point per speed);
+ * null where a direction has fewer than the 3 points a fit needs. These are the curves the
+ * events run on, and their least-squares bilinear fits (damperTableSlopeCurve) are the slopes
+ * every figure uses: benchFit fits exactly these points.
  */
-export function benchFit(points: BenchPoints, field = 'points'): BenchFit {
+export function benchDirectionTables(points: BenchPoints): {
+  bump: BenchTable | null;
+  rebound: BenchTable | null;
+  basis: 'points' | 'binned';
+  counts: { bump: number; rebound: number };
+} {
   const dense = points.velocity.length > BENCH_FIT_MAX_POINTS;
   const basis = dense ? benchPointsBinned(points, BENCH_FIT_BINS, 1) : points;
   const bump: DamperPoint[] = [];
@@ -48,15 +63,36 @@ export function benchFit(points: BenchPoints, field = 'points'): BenchFit {
     if (v > 0) bump.push({ velocity: v, force: f });
     else if (v < 0) rebound.push({ velocity: -v, force: -f });
   }
-  const fit: BenchFit = {
-    bump: directionFit(bump, `${field} (bump)`),
-    rebound: directionFit(rebound, `${field} (rebound)`),
+  const table = (side: DamperPoint[]): BenchTable | null => {
+    const t = damperTablePointsOf(side);
+    return t.length >= 3 ? { kind: 'table', points: t } : null;
+  };
+  return {
+    bump: table(bump),
+    rebound: table(rebound),
     basis: dense ? 'binned' : 'points',
+    counts: { bump: bump.length, rebound: rebound.length },
+  };
+}
+
+/**
+ * Fits a bench run's signed points (compression positive, m/s and N) with the bilinear
+ * least-squares fit of `damperDirectionFit`, over the points of its tables
+ * (benchDirectionTables): bump from the positive velocities, rebound from the negative ones
+ * as magnitudes, one point per speed. The same fit as damperTableSlopeCurve of those tables.
+ * @throws InputError when neither direction has the 3 points a fit needs.
+ */
+export function benchFit(points: BenchPoints, field = 'points'): BenchFit {
+  const tables = benchDirectionTables(points);
+  const fit: BenchFit = {
+    bump: tables.bump ? directionFit([...tables.bump.points], `${field} (bump)`) : null,
+    rebound: tables.rebound ? directionFit([...tables.rebound.points], `${field} (rebound)`) : null,
+    basis: tables.basis,
   };
   if (!fit.bump && !fit.rebound)
     throw new InputError(
       field,
-      `a curve needs at least 3 points of non-zero speed in bump or in rebound (got ${bump.length} bump, ${rebound.length} rebound)`,
+      `a curve needs at least 3 points of non-zero speed in bump or in rebound (got ${tables.counts.bump} bump, ${tables.counts.rebound} rebound)`,
     );
   return fit;
 }

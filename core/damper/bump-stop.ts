@@ -6,7 +6,8 @@ export type BumpStopPoint = { compression: number; force: number };
 /**
  * Bump stop at the damper (DESIGN.md: both at the damper): the free gap from static ride height
  * to contact (m), then a linear rate (N/m), or a tabulated force–compression curve of the stop
- * itself, joined through (0, 0) by a monotone cubic and continued linearly past its last point.
+ * itself, joined through (0, 0) by a monotone cubic (PCHIP, see cubic-hermite.ts) and continued
+ * linearly with its end slope past its last point.
  */
 export type BumpStop = { gap: number; rate: number } | { gap: number; curve: readonly BumpStopPoint[] };
 

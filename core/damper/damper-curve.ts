@@ -13,8 +13,8 @@ export type DamperPoint = { velocity: number; force: number };
  * - bilinear: F = c_ls·v up to the knee, then c_ls·v_knee + c_hs·(v − v_knee)
  *   (digressive when c_hs < c_ls, progressive when c_hs > c_ls)
  * - table: bench points, speed rising and force never falling, joined through (0, 0) by a
- *   monotone cubic (no overshoot between points) and continued as a straight line past the
- *   last point. Treat the points as immutable: the interpolant is built once per table.
+ *   monotone cubic (no overshoot between points; PCHIP end slopes, see cubic-hermite.ts) and
+ *   continued as a straight line with the end slope past the last point. Treat the points as immutable: the interpolant is built once per table.
  */
 export type DamperDirectionCurve =
   | { kind: 'linear'; coefficient: number }
@@ -30,11 +30,8 @@ export type DamperCurve = { bump: DamperDirectionCurve; rebound: DamperDirection
 /** The slopes that the linear figures use: low-speed and high-speed coefficients (N·s/m) and the knee (m/s). */
 export type DamperSlopes = { lowSpeed: number; highSpeed: number; kneeSpeed: number | null };
 
-/**
- * Where a table's low-speed slope ends (m/s): the middle of the 25–75 mm/s band in which race
- * dampers usually split low from high shaft speed (common practice).
- */
-export const DAMPER_TABLE_LOW_SPEED_LIMIT = 0.05;
+/** The bilinear (knee) form of a direction: F = c_ls·v up to the knee, then c_hs past it. */
+export type DamperBilinear = Extract<DamperDirectionCurve, { kind: 'bilinear' }>;
 
 /** The monotone cubic through (0, 0) and a table's points (Fritsch–Carlson; see cubic-hermite.ts). */
 export function damperTableInterpolant(points: readonly DamperPoint[]): CubicHermite {
@@ -46,10 +43,85 @@ export function damperTableInterpolant(points: readonly DamperPoint[]): CubicHer
 }
 
 /**
- * Low- and high-speed slopes of one direction; a linear curve has one slope for both. For a
- * table: the low-speed slope is the secant F(v)/v of the curve at DAMPER_TABLE_LOW_SPEED_LIMIT
- * (or at the last point, when the data stop before it), the high-speed slope the secant from
- * there to the last point, and that limit is reported as the knee.
+ * One direction's measured points (magnitudes) as a table's points: those of positive, finite
+ * speed and finite force, by rising speed, points at one speed averaged into one. A bench run's
+ * points become its curve this way (benchDirectionTables), and its slopes are this table's.
+ */
+export function damperTablePointsOf(points: readonly DamperPoint[]): DamperPoint[] {
+  const sorted = points
+    .filter((p) => p.velocity > 0 && Number.isFinite(p.velocity) && Number.isFinite(p.force))
+    .sort((a, b) => a.velocity - b.velocity);
+  const out: DamperPoint[] = [];
+  for (let i = 0; i < sorted.length;) {
+    const v = (sorted[i] as DamperPoint).velocity;
+    let sum = 0;
+    let n = 0;
+    for (; i < sorted.length && (sorted[i] as DamperPoint).velocity === v; i++, n++)
+      sum += (sorted[i] as DamperPoint).force;
+    out.push({ velocity: v, force: sum / n });
+  }
+  return out;
+}
+
+/** Two slopes this close (relative) make one straight line: its knee means nothing. */
+export const DAMPER_STRAIGHT_LINE_TOLERANCE = 1e-6;
+
+const TABLE_SLOPES = new WeakMap<readonly DamperPoint[], DamperBilinear>();
+
+/**
+ * The one rule by which measured points become low- and high-speed slopes, wherever a table
+ * or a bench run gives the curve (README, What the figures mean): the least-squares bilinear
+ * fit through zero force at zero speed, with its knee found from the data, over every measured
+ * point of the direction (damperDirectionFit). It uses every point rather than one secant at a
+ * fixed speed, so one noisy point moves it little; it puts the knee where the valving's slope
+ * changes rather than at a speed chosen in advance; and it is the straight-line reading of a
+ * force–velocity plot that the bench library shows. Fewer points than a fit needs: one point
+ * gives one slope (its secant, knee at the point); two give the secant to the first point and
+ * the one from it to the second, knee at the first (the bilinear form through both exactly).
+ * Computed once per points array: treat the array as immutable.
+ * @example damperTableSlopeCurve([{ velocity: 0.05, force: 280 }]) // 5600 both sides, knee 0.05
+ */
+export function damperTableSlopeCurve(points: readonly DamperPoint[]): DamperBilinear {
+  const known = TABLE_SLOPES.get(points);
+  if (known) return known;
+  const first = points[0];
+  const second = points[1];
+  let curve: DamperBilinear;
+  if (!first) curve = { kind: 'bilinear', lowSpeed: 0, kneeSpeed: 0, highSpeed: 0 };
+  else if (points.length === 1) {
+    const c = first.force / first.velocity;
+    curve = { kind: 'bilinear', lowSpeed: c, kneeSpeed: first.velocity, highSpeed: c };
+  } else if (points.length === 2 && second) {
+    curve = {
+      kind: 'bilinear',
+      lowSpeed: first.force / first.velocity,
+      kneeSpeed: first.velocity,
+      highSpeed: (second.force - first.force) / (second.velocity - first.velocity),
+    };
+  } else curve = damperDirectionFit(points).curve;
+  TABLE_SLOPES.set(points, curve);
+  return curve;
+}
+
+/**
+ * The bilinear form of any direction by the one rule: itself when bilinear, one slope for a
+ * linear curve (knee at zero), a table's least-squares fit (damperTableSlopeCurve).
+ */
+export function damperDirectionSlopeCurve(d: DamperDirectionCurve): DamperBilinear {
+  switch (d.kind) {
+    case 'linear':
+      return { kind: 'bilinear', lowSpeed: d.coefficient, kneeSpeed: 0, highSpeed: d.coefficient };
+    case 'bilinear':
+      return d;
+    case 'table':
+      return damperTableSlopeCurve(d.points);
+  }
+}
+
+/**
+ * Low- and high-speed slopes of one direction, the ones every linear figure uses; a linear
+ * curve has one slope for both. A table's are its least-squares bilinear fit
+ * (damperTableSlopeCurve), its knee null when the two slopes make one straight line.
  */
 export function damperDirectionSlopes(d: DamperDirectionCurve): DamperSlopes {
   switch (d.kind) {
@@ -58,18 +130,11 @@ export function damperDirectionSlopes(d: DamperDirectionCurve): DamperSlopes {
     case 'bilinear':
       return { lowSpeed: d.lowSpeed, highSpeed: d.highSpeed, kneeSpeed: d.kneeSpeed };
     case 'table': {
-      const last = d.points[d.points.length - 1];
-      if (!last) return { lowSpeed: 0, highSpeed: 0, kneeSpeed: null };
-      const c = damperTableInterpolant(d.points);
-      const knee = Math.min(DAMPER_TABLE_LOW_SPEED_LIMIT, last.velocity);
-      const kneeForce = cubicHermiteAt(c, knee);
-      const lowSpeed = kneeForce / knee;
-      if (last.velocity <= knee) return { lowSpeed, highSpeed: lowSpeed, kneeSpeed: null };
-      return {
-        lowSpeed,
-        highSpeed: (last.force - kneeForce) / (last.velocity - knee),
-        kneeSpeed: knee,
-      };
+      if (d.points.length === 0) return { lowSpeed: 0, highSpeed: 0, kneeSpeed: null };
+      const f = damperTableSlopeCurve(d.points);
+      const straight =
+        Math.abs(f.highSpeed - f.lowSpeed) <= DAMPER_STRAIGHT_LINE_TOLERANCE * Math.abs(f.lowSpeed);
+      return { lowSpeed: f.lowSpeed, highSpeed: f.highSpeed, kneeSpeed: straight ? null : f.kneeSpeed };
     }
   }
 }
@@ -248,7 +313,7 @@ export function damperCurveToFile(curve: DamperCurve, system: UnitSystem = 'si')
 
 /** A bilinear fit of bench points with its residual. */
 export type DamperDirectionFit = {
-  curve: Extract<DamperDirectionCurve, { kind: 'bilinear' }>;
+  curve: DamperBilinear;
   /** RMS of force residuals (N). */
   rmsResidual: number;
   points: number;

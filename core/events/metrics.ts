@@ -86,17 +86,20 @@ const TRACKED: readonly (readonly [number, 1 | -1])[] = [
 ];
 
 /**
- * A sampled local maximum is refined when it is within this fraction of the best so far: the
- * samples may understate a peak, and a nearly equal earlier peak may be the true maximum.
+ * Samples of each accepted step on its dense output, its end included: a peak or trough that
+ * rises and falls again inside one step shows among them, and every local extremum of the
+ * samples is then refined on the dense output.
  */
-const REFINE_MARGIN = 0.02;
+export const STEP_SAMPLES = 4;
 
 /**
  * Watches an event's integration step by step (odeIntegrate's observer) and keeps the metrics:
- * exact mode times (airborne, bump stop, top-out) from the located switches, extremes from the
- * step ends refined on the dense output by Brent's method around every sampled local maximum
- * that could be a record, the settling time located by bisection, and the history sampled
- * evenly on the dense output. Allocates nothing per step.
+ * exact mode times (airborne, bump stop, top-out) from the located switches; extremes from
+ * STEP_SAMPLES samples of every step on its dense output, each local maximum of the samples
+ * (of sign·output: troughs too) refined on the dense output by Brent's method between its
+ * neighbouring samples, whatever its value, so that no peak is understated however the steps
+ * fall; the settling time located by bisection; and the history sampled evenly on the dense
+ * output. Allocates nothing per step.
  */
 export class EventRecorder {
   private readonly model: QuarterCarEventModel;
@@ -106,6 +109,9 @@ export class EventRecorder {
   private readonly bestTime = new Float64Array(TRACKED.length);
   private readonly prev = new Float64Array(TRACKED.length);
   private readonly prev2 = new Float64Array(TRACKED.length);
+  /** Times of the last two samples (shared by every tracked output). */
+  private prevTime = 0;
+  private prev2Time = 0;
   private readonly out = new Float64Array(OUTPUT_COUNT);
   private readonly end = new Float64Array(OUTPUT_COUNT);
   private readonly state = new Float64Array(4);
@@ -201,31 +207,13 @@ export class EventRecorder {
       }
     }
 
-    const from = this.hasPrevious ? this.previousStep.t0 : t0;
-    step.at(t1, this.state);
-    m.outputs(t1, this.state, m.piece, this.end);
-    for (let i = 0; i < TRACKED.length; i++) {
-      const [o, sign] = TRACKED[i] as readonly [number, 1 | -1];
-      const v = sign * (this.end[o] as number);
-      const p = this.prev[i] as number;
-      const best = this.best[i] as number;
-      const p2 = this.prev2[i] as number;
-      // A strict local maximum of the samples (a flat run, such as no bump-stop force, is none).
-      if (p >= p2 && p >= v && (p > p2 || p > v) && p >= best - REFINE_MARGIN * Math.abs(best)) {
-        // 1e-4 of the interval in time: the value's error goes as its square.
-        const peak = scalarMaximum((t) => sign * this.outputAt(step, o, t), from, t1, t0, 1e-4 * (t1 - from));
-        if (peak.value > best) {
-          this.best[i] = peak.value;
-          this.bestTime[i] = peak.x;
-        }
-      }
-      if (v > (this.best[i] as number)) {
-        this.best[i] = v;
-        this.bestTime[i] = t1;
-      }
-      this.prev2[i] = p;
-      this.prev[i] = v;
+    for (let k = 1; k <= STEP_SAMPLES; k++) {
+      const tk = k === STEP_SAMPLES ? t1 : t0 + (dt * k) / STEP_SAMPLES;
+      step.at(tk, this.state);
+      m.outputs(tk, this.state, m.piece, this.end);
+      this.extremesTake(step, tk);
     }
+    // The end's outputs stay in this.end for the settling check below.
 
     const settle = this.settle;
     if (settle) {
@@ -250,6 +238,39 @@ export class EventRecorder {
     this.previousStep.copyFrom(step);
     this.previousPiece = m.piece;
     this.hasPrevious = true;
+  }
+
+  /**
+   * Takes the sample at `tk` (outputs in this.end): a sample between two lower neighbours is a
+   * local maximum of sign·output, refined on the dense output between those neighbours (they
+   * lie in this step or the previous one); then the sample itself counts.
+   */
+  private extremesTake(step: DenseStep, tk: number): void {
+    const from = this.prev2Time;
+    const at = this.prevTime;
+    for (let i = 0; i < TRACKED.length; i++) {
+      const [o, sign] = TRACKED[i] as readonly [number, 1 | -1];
+      const v = sign * (this.end[o] as number);
+      const p = this.prev[i] as number;
+      const p2 = this.prev2[i] as number;
+      // A strict local maximum of the samples (a flat run, such as no bump-stop force, is none).
+      if (p >= p2 && p >= v && (p > p2 || p > v)) {
+        // 1e-4 of the interval in time: the value's error goes as its square.
+        const peak = scalarMaximum((t) => sign * this.outputAt(step, o, t), from, tk, at, 1e-4 * (tk - from));
+        if (peak.value > (this.best[i] as number)) {
+          this.best[i] = peak.value;
+          this.bestTime[i] = peak.x;
+        }
+      }
+      if (v > (this.best[i] as number)) {
+        this.best[i] = v;
+        this.bestTime[i] = tk;
+      }
+      this.prev2[i] = p;
+      this.prev[i] = v;
+    }
+    this.prev2Time = at;
+    this.prevTime = tk;
   }
 
   metrics(): EventMetrics {

@@ -18,7 +18,7 @@ import { modesOf, type Modes } from '../corner/modal';
 import { randomRoadResponse, type RandomRoadResponse } from '../corner/random-road';
 import { eventSimulate } from '../events/simulate';
 import { stepResponseLinear, type StepResponse } from '../corner/step-response';
-import { cornerWarnings, type ModelWarning } from '../corner/warnings';
+import { cornerWarnings, randomRoadWarnings, type ModelWarning } from '../corner/warnings';
 
 /** Everything the analysis of one corner file gives, SI. */
 export type CornerAnalysis = {
@@ -62,7 +62,10 @@ export function cornerAnalyze(
     step,
     warnings: cornerWarnings(figures, modes, step, units),
   };
-  if (file.road) analysis.randomRoad = randomRoadResponse(quarterCar, file.road);
+  if (file.road) {
+    analysis.randomRoad = randomRoadResponse(quarterCar, file.road);
+    analysis.warnings.push(...randomRoadWarnings(analysis.randomRoad, file.road, units));
+  }
   if (file.bump) {
     const event = eventBump(file.bump);
     const metrics = eventSimulate(file.corner, event).metrics;

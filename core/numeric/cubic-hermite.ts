@@ -15,9 +15,13 @@ export type CubicHermite = {
  * the data, monotone wherever the data are and flat at a local extremum (Fritsch & Carlson
  * 1980, "Monotone piecewise cubic interpolation", SIAM J. Numer. Anal. 17; interior slopes by
  * the weighted harmonic mean of Fritsch & Butland 1984, as the PCHIP routines use). The end
- * slopes are the end secants, so the linear continuation past either end (cubicHermiteAt)
- * joins with a continuous slope. Knots must be finite with x strictly increasing: callers
- * validate their own data and name the bad point; this only guards against misuse.
+ * slopes are PCHIP's three-point formula (Moler, Numerical Computing with MATLAB, §3.4,
+ * `pchipend`; see pchipEndSlope): the slope at the end of the parabola through the three
+ * end knots, set to zero when its sign differs from the end secant's and limited to three
+ * times that secant when the data turn there. With two knots both slopes are the secant. The
+ * linear continuation past either end (cubicHermiteAt) carries the end slope, so it joins
+ * with a continuous slope. Knots must be finite with x strictly increasing: callers validate
+ * their own data and name the bad point; this only guards against misuse.
  * @example cubicHermiteMonotone([0, 0.05, 0.2], [0, 400, 900])
  */
 export function cubicHermiteMonotone(xs: ArrayLike<number>, ys: ArrayLike<number>): CubicHermite {
@@ -35,8 +39,18 @@ export function cubicHermiteMonotone(xs: ArrayLike<number>, ys: ArrayLike<number
     h[i] = hi;
     delta[i] = ((y[i + 1] as number) - (y[i] as number)) / hi;
   }
-  slope[0] = delta[0] as number;
-  slope[n - 1] = delta[n - 2] as number;
+  if (n === 2) {
+    slope[0] = delta[0] as number;
+    slope[1] = delta[0] as number;
+  } else {
+    slope[0] = pchipEndSlope(h[0] as number, h[1] as number, delta[0] as number, delta[1] as number);
+    slope[n - 1] = pchipEndSlope(
+      h[n - 2] as number,
+      h[n - 3] as number,
+      delta[n - 2] as number,
+      delta[n - 3] as number,
+    );
+  }
   for (let i = 1; i < n - 1; i++) {
     const d0 = delta[i - 1] as number;
     const d1 = delta[i] as number;
@@ -52,6 +66,20 @@ export function cubicHermiteMonotone(xs: ArrayLike<number>, ys: ArrayLike<number
     }
   }
   return { x, y, slope };
+}
+
+/**
+ * PCHIP's slope at an end knot from the end cell (width h1, secant d1) and the next one
+ * (h2, d2): the three-point formula ((2·h1 + h2)·d1 − h1·d2)/(h1 + h2), the derivative at the
+ * end of the parabola through the three end knots; zero when its sign is not the end secant's,
+ * and 3·d1 when the secants change sign and it is steeper than that (Moler, Numerical
+ * Computing with MATLAB, §3.4, `pchipend`), so that the end cell keeps monotone.
+ */
+export function pchipEndSlope(h1: number, h2: number, d1: number, d2: number): number {
+  const d = ((2 * h1 + h2) * d1 - h1 * d2) / (h1 + h2);
+  if (Math.sign(d) !== Math.sign(d1)) return 0;
+  if (Math.sign(d1) !== Math.sign(d2) && Math.abs(d) > Math.abs(3 * d1)) return 3 * d1;
+  return d;
 }
 
 const THROUGH_ORIGIN = new WeakMap<object, CubicHermite>();

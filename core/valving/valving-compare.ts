@@ -76,7 +76,7 @@ export function valvingCompare(
       clicks: corner.clicks,
       headline: valvingHeadlineOf(f),
       score: valvingScoreOf(f, targets),
-      warnings: valvingWarningsOf(corner.analysis, corner.analysis.damper, f, events, units),
+      warnings: valvingWarningsOf(corner.analysis, corner.analysis.damper, f, events, units, scenario.road),
     };
   };
   const corners = CORNER_POSITIONS.map((p, i) => {

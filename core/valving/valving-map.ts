@@ -5,23 +5,46 @@ import {
   type ClickSettings,
 } from '../damper/click-settings';
 import { cornerQuarterCar, cornerRideFigures, type CornerInput, type DampingClass } from '../corner/corner';
-import type { DamperCurve, DamperDirectionCurve } from '../damper/damper-curve';
+import type { BenchPoints } from '../damper/bench-trace';
+import { benchDirectionTables } from '../damper/bench-fit';
+import {
+  damperDirectionSlopeCurve,
+  damperDirectionSlopes,
+  DAMPER_STRAIGHT_LINE_TOLERANCE,
+  type DamperCurve,
+  type DamperDirectionCurve,
+} from '../damper/damper-curve';
 import { InputError } from '../units/input-error';
 import { modesOf } from '../corner/modal';
 
-/** A fitted direction as the bench library stores it: the bilinear (knee) form. */
+/** A direction's slopes as the map shows them: the bilinear (knee) form of the one rule. */
 export type ValvingDirectionCurve = Extract<DamperDirectionCurve, { kind: 'bilinear' }>;
 
 /**
- * One bench run as the map reads it: its clicker positions and the fitted curve of each
- * direction (null where the run had too few points in that direction), at the damper.
+ * One bench run as the map reads it: its clicker positions and the curve of each direction
+ * (null where the run had too few points in that direction), at the damper — from the bench,
+ * the table of its measured points (valvingRunOf).
  */
 export type ValvingRun = {
   id: number;
   clicks: ClickSettings;
-  bump: { curve: ValvingDirectionCurve } | null;
-  rebound: { curve: ValvingDirectionCurve } | null;
+  bump: { curve: DamperDirectionCurve } | null;
+  rebound: { curve: DamperDirectionCurve } | null;
 };
+
+/**
+ * A bench run as the map reads it, from its stored points: each direction's measured table
+ * (benchDirectionTables), the curve the events run on and the slopes are fitted to.
+ */
+export function valvingRunOf(id: number, clicks: ClickSettings, points: BenchPoints): ValvingRun {
+  const t = benchDirectionTables(points);
+  return {
+    id,
+    clicks,
+    bump: t.bump ? { curve: t.bump } : null,
+    rebound: t.rebound ? { curve: t.rebound } : null,
+  };
+}
 
 /** One clicker adjuster of the map: every setting on the grid, and those measured on the bench. */
 export type ValvingAxis = {
@@ -41,7 +64,8 @@ export type ValvingCurveCell = {
   source: ValvingCellSource;
   /** The run(s) the curves come from: the newest run at these clicks, or the measured neighbours. */
   runIds: number[];
-  damper: { bump: ValvingDirectionCurve; rebound: ValvingDirectionCurve };
+  /** The curves themselves: a bench run's measured tables, or the blend of their fits where interpolated. */
+  damper: { bump: DamperDirectionCurve; rebound: DamperDirectionCurve };
 };
 
 /**
@@ -88,42 +112,60 @@ export type ValvingMap = {
   corner: { rideFrequencyHz: number; wheelHopFrequencyHz: number; criticalDamping: number };
 };
 
-/** Two slopes this close (relative) make one straight line: its knee means nothing. */
-const STRAIGHT_LINE_TOLERANCE = 1e-6;
-
 const clickKey = (axes: readonly ClickAdjuster[], clicks: ClickSettings) =>
   axes.map((a) => clicks[a] ?? '').join(',');
 
 /** The settings of `values`, rising, without repeats. */
 const rising = (values: Iterable<number>) => [...new Set(values)].sort((a, b) => a - b);
 
-function curveCheck(curve: ValvingDirectionCurve): boolean {
-  return [curve.lowSpeed, curve.kneeSpeed, curve.highSpeed].every((x) => Number.isFinite(x) && x > 0);
+const positive = (x: number) => Number.isFinite(x) && x > 0;
+
+function curveCheck(curve: DamperDirectionCurve): boolean {
+  switch (curve.kind) {
+    case 'linear':
+      return positive(curve.coefficient);
+    case 'bilinear':
+      return [curve.lowSpeed, curve.kneeSpeed, curve.highSpeed].every(positive);
+    case 'table':
+      return (
+        curve.points.length > 0 &&
+        curve.points.every((p) => positive(p.velocity) && Number.isFinite(p.force)) &&
+        positive(damperDirectionSlopes(curve).lowSpeed)
+      );
+  }
 }
 
-/** Linear blend of bilinear curves: each of low-speed slope, knee speed and high-speed slope. */
-function curveBlend(parts: readonly { w: number; curve: ValvingDirectionCurve }[]): ValvingDirectionCurve {
+/**
+ * A blend of curves with weights summing to one, for a click no run measured: the bilinear
+ * form whose low-speed slope, knee and high-speed slope are the weighted sums of the
+ * neighbours' (their slope curves by the one rule, damperDirectionSlopeCurve). Blending the
+ * tables' forces instead would give a curve with two knees whose fitted slopes can fall
+ * outside both neighbours'; this keeps every slope between them.
+ */
+function curveBlend(parts: readonly { w: number; curve: DamperDirectionCurve }[]): DamperDirectionCurve {
   let lowSpeed = 0;
   let kneeSpeed = 0;
   let highSpeed = 0;
   for (const { w, curve } of parts) {
-    lowSpeed += w * curve.lowSpeed;
-    kneeSpeed += w * curve.kneeSpeed;
-    highSpeed += w * curve.highSpeed;
+    const c = damperDirectionSlopeCurve(curve);
+    lowSpeed += w * c.lowSpeed;
+    kneeSpeed += w * c.kneeSpeed;
+    highSpeed += w * c.highSpeed;
   }
   return { kind: 'bilinear', lowSpeed, kneeSpeed, highSpeed };
 }
 
 /**
- * The damper's curves over its click grid, from its bench runs' fitted curves.
+ * The damper's curves over its click grid, from its bench runs' curves (their measured tables).
  *
  * The axes are the adjusters the runs record. At each click combination the newest run (the
  * highest id) with a fit of a direction gives that direction; a combination with both
  * directions is measured. With `interpolate`, every whole click between the lowest and highest
  * measured setting of each axis is on the grid, and a combination not measured gets curves
- * interpolated multilinearly (low-speed slope, knee and high-speed slope each linear in the
- * clicks) between the measured neighbours that enclose it on every axis — only when all of
- * them are measured, so nothing is ever extrapolated or bridged over a gap.
+ * interpolated multilinearly (low-speed slope, knee and high-speed slope of the neighbours'
+ * fits each linear in the clicks; see curveBlend) between the measured neighbours that enclose
+ * it on every axis — only when all of them are measured, so nothing is ever extrapolated or
+ * bridged over a gap.
  * @throws InputError naming `field` when no run gives a complete curve.
  */
 export function valvingCurvesOf(
@@ -141,7 +183,7 @@ export function valvingCurvesOf(
     );
     return false;
   });
-  type Side = { id: number; curve: ValvingDirectionCurve };
+  type Side = { id: number; curve: DamperDirectionCurve };
   const byClicks = new Map<string, { clicks: ClickSettings; bump?: Side; rebound?: Side }>();
   for (const r of [...usable].sort((a, b) => a.id - b.id)) {
     const clicks: ClickSettings = {};
@@ -259,11 +301,21 @@ export function valvingCornerWith(
   return { ...corner, damper: curve };
 }
 
+/** A direction's knee by the one rule (damperDirectionSlopes); null for one straight line. */
 function kneeOf(curve: DamperDirectionCurve): number | null {
-  if (curve.kind !== 'bilinear') return null;
+  const s = damperDirectionSlopes(curve);
   const straight =
-    Math.abs(curve.highSpeed - curve.lowSpeed) <= STRAIGHT_LINE_TOLERANCE * Math.abs(curve.lowSpeed);
-  return straight ? null : curve.kneeSpeed;
+    s.kneeSpeed === null ||
+    Math.abs(s.highSpeed - s.lowSpeed) <= DAMPER_STRAIGHT_LINE_TOLERANCE * Math.abs(s.lowSpeed);
+  return straight ? null : s.kneeSpeed;
+}
+
+/** A cell's curves as the slopes of the one rule (damperDirectionSlopeCurve): what a map shows of them. */
+export function valvingCellSlopes(damper: { bump: DamperDirectionCurve; rebound: DamperDirectionCurve }): {
+  bump: ValvingDirectionCurve;
+  rebound: ValvingDirectionCurve;
+} {
+  return { bump: damperDirectionSlopeCurve(damper.bump), rebound: damperDirectionSlopeCurve(damper.rebound) };
 }
 
 /**

@@ -1,5 +1,6 @@
 import type { ClickAdjuster, ClickSettings } from '../damper/click-settings';
 import { cornerQuarterCar, cornerRideFigures, type CornerInput } from '../corner/corner';
+import type { RoadSpec } from '../corner/corner-file';
 import { eventWarnings } from '../events/event-warnings';
 import { modesOf } from '../corner/modal';
 import type { QuantityKind, UnitSystem } from '../units/units';
@@ -13,6 +14,7 @@ import {
 import {
   valvingCellIndex,
   valvingCornerWith,
+  type ValvingAxis,
   type ValvingCurves,
   type ValvingCellSource,
 } from './valving-map';
@@ -23,7 +25,7 @@ import {
   type ValvingSource,
   type ValvingTargets,
 } from './valving-targets';
-import { cornerWarnings, type ModelWarning } from '../corner/warnings';
+import { cornerWarnings, randomRoadWarnings, type ModelWarning } from '../corner/warnings';
 
 /** The figures a crew reads first, for picks, sensitivities and comparisons. */
 export const VALVING_HEADLINE_KEYS = [
@@ -153,20 +155,80 @@ export function valvingHeadlineChange(before: ValvingHeadline, after: ValvingHea
   return out;
 }
 
-/** The model's warnings for `corner` fitted with `damper`, from its linear figures and its two events. */
+/**
+ * The model's warnings for `corner` fitted with `damper`, from its linear figures, its random
+ * road (`road`, when given) and its two events.
+ */
 export function valvingWarningsOf(
   corner: CornerInput,
   damper: ValvingDamper,
   figures: ValvingFigures,
   events: ValvingEvents,
   units: UnitSystem = 'si',
+  road?: RoadSpec,
 ): ModelWarning[] {
   const c = valvingCornerWith(corner, damper);
   return [
     ...cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c)), undefined, units),
+    ...(road ? randomRoadWarnings(figures.randomRoad, road, units) : []),
     ...eventWarnings(c, events.bump, figures.bump, units),
     ...eventWarnings(c, events.curb, figures.curb, units),
   ];
+}
+
+/** Plain words of each adjuster, for steps and warnings. */
+const ADJUSTER_NAMES: Record<ClickAdjuster, string> = {
+  bump: 'bump',
+  rebound: 'rebound',
+  bumpHighSpeed: 'high-speed bump',
+  reboundHighSpeed: 'high-speed rebound',
+};
+
+/** The ζ headline each adjuster moves most directly. */
+const ADJUSTER_ZETA: Record<ClickAdjuster, ValvingHeadlineKey> = {
+  bump: 'zetaBump',
+  rebound: 'zetaRebound',
+  bumpHighSpeed: 'zetaBumpHighSpeed',
+  reboundHighSpeed: 'zetaReboundHighSpeed',
+};
+
+/**
+ * A sensitivity step named in clicks, from the pick at `from`: "bump +3 clicks" when the next
+ * setting on the map is three clicks away (only some clicks measured), "rebound −1 click".
+ */
+export function valvingStepText(step: Pick<ValvingStep, 'adjuster' | 'clicks'>, from: ClickSettings): string {
+  const moved = (step.clicks[step.adjuster] ?? 0) - (from[step.adjuster] ?? 0);
+  const n = Math.abs(moved);
+  return `${ADJUSTER_NAMES[step.adjuster]} ${moved < 0 ? '−' : '+'}${n} click${n === 1 ? '' : 's'}`;
+}
+
+/**
+ * A warning when the best pick sits at the end of an adjuster's clicks on the map: the best
+ * may lie beyond, so the range measured (or the adjuster's) may be too narrow. Which end —
+ * stiffest or softest — is read from the ζ that adjuster moves, one step inward.
+ */
+function rangeEndWarnings(
+  clicks: ClickSettings,
+  axes: readonly ValvingAxis[],
+  sensitivity: readonly ValvingStep[],
+): ModelWarning[] {
+  const out: ModelWarning[] = [];
+  for (const axis of axes) {
+    const v = clicks[axis.adjuster];
+    if (v === undefined || axis.clicks.length < 2) continue;
+    if (v !== axis.clicks[0] && v !== axis.clicks[axis.clicks.length - 1]) continue;
+    const inward = sensitivity.find((s) => s.adjuster === axis.adjuster);
+    const dz = inward?.change?.[ADJUSTER_ZETA[axis.adjuster]] ?? null;
+    const end =
+      dz === null || dz === 0 ? 'an end of the' : dz < 0 ? 'the stiffest of the' : 'the softest of the';
+    const name = ADJUSTER_NAMES[axis.adjuster];
+    out.push({
+      code: `best-at-range-end-${axis.adjuster}`,
+      field: `clicks.${axis.adjuster}`,
+      message: `The best pick is at ${end} ${name} clicks on the map (${name} ${v}): the best may lie beyond it, so the range may be too narrow; check the maker's adjuster range, and bench-test clicks further out within it before going there.`,
+    });
+  }
+  return out;
 }
 
 /** One click either way on one adjuster, from a pick: where it lands and how the figures move. */
@@ -343,7 +405,10 @@ export function valvingRank(
         ...(scores[cell] as ValvingScore),
         headline,
         sensitivity,
-        warnings: valvingWarningsOf(corner.corner, c.damper, f, events, options.units),
+        warnings: [
+          ...(rankOf.get(cell) === 1 ? rangeEndWarnings(c.clicks, curves.axes, sensitivity) : []),
+          ...valvingWarningsOf(corner.corner, c.damper, f, events, options.units, job.scenario.road),
+        ],
       };
     };
     const now = options.current?.[k];

@@ -33,6 +33,17 @@ export function benchRunListOfDamper(db: Database.Database, damperUnitId: number
   ) as BenchRunSummaryRow[];
 }
 
+/** The runs of one damper unit with their points but not their traces, oldest first. */
+export function benchRunsWithPointsOfDamper(
+  db: Database.Database,
+  damperUnitId: number,
+): (BenchRunSummaryRow & Pick<BenchRunRow, 'points'>)[] {
+  return statement(
+    db,
+    `SELECT ${SUMMARY_COLUMNS}, points FROM bench_run WHERE damper_unit_id = ? ORDER BY id`,
+  ).all(damperUnitId) as (BenchRunSummaryRow & Pick<BenchRunRow, 'points'>)[];
+}
+
 /** Full rows of a damper's runs, for export. */
 export function benchRunRowsOfDamper(db: Database.Database, damperUnitId: number): BenchRunRow[] {
   return statement(db, 'SELECT * FROM bench_run WHERE damper_unit_id = ? ORDER BY id').all(

@@ -36,8 +36,10 @@ describe('rideledger choose, compare and damping-map on the demo shop', () => {
     );
     expect(r.stdout).toMatch(/^ {2}1 +bump \d+ rebound \d+ /m);
     expect(r.stdout).toMatch(/Why rank 1 \(bump \d+ rebound \d+, run #\d+\):/);
-    expect(r.stdout).toMatch(/One click either way from rank 1:/);
-    expect(r.stdout).toMatch(/^ {4}(bump|rebound) [+−]1 /m);
+    expect(r.stdout).toMatch(/The next setting on the map either way from rank 1:/);
+    // The demo's runs are 3 clicks apart: a step on the map is named in clicks.
+    expect(r.stdout).toMatch(/^ {4}(bump|rebound) [+−]3 clicks {2,}bump \d+ rebound \d+ /m);
+    expect(r.stdout).not.toMatch(/^ {4}(bump|rebound) [+−]1 /m);
     expect(r.stdout).toMatch(/Warnings of the model for rank 1:/);
     expect(flat(r.stdout)).toContain(`Caution: ${CAUTION_TEXT}`);
     expect(flat(r.stdout)).toContain(VALVING_CAUTION_TEXT);

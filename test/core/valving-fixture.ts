@@ -1,7 +1,11 @@
-import { benchFit } from '../../core/damper/bench-fit';
 import type { ClickSettings } from '../../core/damper/click-settings';
 import type { CornerInput } from '../../core/corner/corner';
-import type { ValvingCurveCell, ValvingDirectionCurve, ValvingRun } from '../../core/valving/valving-map';
+import {
+  valvingRunOf,
+  type ValvingCurveCell,
+  type ValvingDirectionCurve,
+  type ValvingRun,
+} from '../../core/valving/valving-map';
 import { MILLBROOK_FRONT_LEFT } from './demo-corner';
 
 /** Bench points of a damper, compression positive, from −0.5 to 0.5 m/s: what a dyno sweep records. */
@@ -26,15 +30,14 @@ export function bilinearForce(c: ValvingDirectionCurve): (v: number) => number {
     v <= c.kneeSpeed ? c.lowSpeed * v : c.lowSpeed * c.kneeSpeed + c.highSpeed * (v - c.kneeSpeed);
 }
 
-/** A bench run at `clicks` whose points come from the given force curves, fitted as an import fits them. */
+/** A bench run at `clicks` whose points come from the given force curves, read as the map reads a stored run. */
 export function benchRunOf(
   id: number,
   clicks: ClickSettings,
   bump: (v: number) => number,
   rebound: (v: number) => number,
 ): ValvingRun {
-  const fit = benchFit(benchPointsOf(bump, rebound));
-  return { id, clicks, bump: fit.bump, rebound: fit.rebound };
+  return valvingRunOf(id, clicks, benchPointsOf(bump, rebound));
 }
 
 export const bilinear = (lowSpeed: number, kneeSpeed: number, highSpeed: number): ValvingDirectionCurve => ({

@@ -1,5 +1,4 @@
 import type Database from 'better-sqlite3';
-import type { BenchFit } from '../../../core/damper/bench-fit';
 import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../../core/safety/caution';
 import { InputError } from '../../../core/units/input-error';
 import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../../../core/setup/setup-sheet';
@@ -7,8 +6,10 @@ import { valvingJobOf, valvingSettingsOf, type ValvingSettings } from '../../../
 import { valvingCompare } from '../../../core/valving/valving-compare';
 import type { ValvingFigures } from '../../../core/valving/valving-evaluate';
 import {
+  valvingCellSlopes,
   valvingCurvesOf,
   valvingMapOf,
+  valvingRunOf,
   type ValvingCurves,
   type ValvingRun,
 } from '../../../core/valving/valving-map';
@@ -21,7 +22,8 @@ import {
 } from '../../../core/valving/valving-targets';
 import { setupSheetResolve } from '../../../db/damper-resolve';
 import { damperUnitResolve } from '../../../db/damper-units';
-import { benchRunListOfDamper } from '../../../db/queries/bench-run';
+import { benchPointsDecode } from '../../../db/bench-points';
+import { benchRunsWithPointsOfDamper } from '../../../db/queries/bench-run';
 import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';
 import { clickSettingsOfColumns } from '../../../db/setup-rows';
 import { setupRevisionResolve, setupSheetRead } from '../../../db/setup-store';
@@ -30,17 +32,16 @@ import type { ApiContext } from '../context';
 import type { HandlerOutput, HandlerParsedInput } from '../contract';
 import { valvingSweepParallel } from '../valving-pool';
 
-/** A damper unit's bench runs as the map reads them: clicks and fitted curves. */
+/** A damper unit's bench runs as the map reads them: clicks and the measured tables of their points. */
 function valvingRunsOf(
   db: Database.Database,
   label: string,
   field: string,
 ): { label: string; runs: ValvingRun[] } {
   const unit = damperUnitResolve(db, label, field);
-  const runs = benchRunListOfDamper(db, unit.id).map((r) => {
-    const fit = JSON.parse(r.fit_json) as BenchFit;
-    return { id: r.id, clicks: clickSettingsOfColumns(r), bump: fit.bump, rebound: fit.rebound };
-  });
+  const runs = benchRunsWithPointsOfDamper(db, unit.id).map((r) =>
+    valvingRunOf(r.id, clickSettingsOfColumns(r), benchPointsDecode(r.points)),
+  );
   return { label: unit.label, runs };
 }
 
@@ -132,6 +133,8 @@ export function valvingMapHandler(
     position: p,
     damper: label,
     ...map,
+    // The slopes each cell's curves give by the one rule; the tables stay in core.
+    cells: map.cells.map((c) => ({ ...c, damper: valvingCellSlopes(c.damper) })),
   };
 }
 

@@ -1,7 +1,7 @@
 import { clickSettingsText } from '../../../core/damper/click-settings';
 import { numberFormat, type UnitSystem } from '../../../core/units/units';
 import type { ValvingHeadlineKey } from '../../../core/valving/valving-rank';
-import { VALVING_HEADLINES } from '../../../core/valving/valving-rank';
+import { VALVING_HEADLINES, valvingStepText } from '../../../core/valving/valving-rank';
 import { ValvingSweepStopped } from '../../../core/valving/valving-sweep';
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
@@ -28,10 +28,11 @@ rideledger choose --presets [--json]
 
   Sweeps every click combination of a damper unit's bench data on a corner of a revision
   (the newest without @N): the linear ζ figures, the random road, and the bump and curb on
-  the nonlinear quarter car with the measured curves, then ranks them against the preset's
-  targets and shows the best few — which targets they meet and miss by how much, how the
-  figures move one click either way, the clicks the corner runs now, and the front/rear
-  balance when both axles are chosen. It reads only; nothing is stored.
+  the nonlinear quarter car with the measured curves (each run's bench table), then ranks
+  them against the preset's targets and shows the best few — which targets they meet and
+  miss by how much, how the figures move to the next setting on the map either way (named
+  in clicks), the clicks the corner runs now, and the front/rear balance when both axles
+  are chosen. It reads only; nothing is stored.
 
   --corner C         FL, FR, RL, RR, front, rear or all (repeat, or a comma list)
   --damper LABEL     the damper unit whose bench runs to use (default: the corner's own)
@@ -100,7 +101,7 @@ function sensitivityRows(p: Pick, system: UnitSystem): string[][] {
   return [
     ['step', 'clicks', 'score', ...columns.map((k) => `Δ ${VALVING_HEADLINES[k].short}`)],
     ...p.sensitivity.map((s) => [
-      `${s.adjuster} ${s.direction > 0 ? '+1' : '−1'}`,
+      valvingStepText(s, p.clicks),
       clicksText(s.clicks, s.source),
       s.score === null ? 'not on the map' : numberFormat(s.score, 3),
       ...columns.map((k) => (s.change ? valvingHeadlineText(k, s.change[k], system, true) : '—')),
@@ -136,7 +137,7 @@ function chooseHuman(out: ChooseOut, system: UnitSystem): string {
       lines.push(
         `  Why rank 1 (${clicksText(best.clicks, best.source)}${best.source === 'interpolated' ? `, interpolated between runs ${best.runIds.map((i) => `#${i}`).join(', ')}` : `, run ${best.runIds.map((i) => `#${i}`).join(', ')}`}):`,
         ...valvingCheckLines(best.checks, system, '    '),
-        '  One click either way from rank 1:',
+        '  The next setting on the map either way from rank 1:',
         best.sensitivity.length
           ? tableFormat(sensitivityRows(best, system), { indent: 4 })
           : '    no other setting on the map',

@@ -12,7 +12,7 @@ import {
   type QuantityKind,
   type UnitSystem,
 } from '../../../core/units/units';
-import { VALVING_HEADLINES } from '../../../core/valving/valving-rank';
+import { VALVING_HEADLINES, valvingStepText } from '../../../core/valving/valving-rank';
 import type { ValvingTargetKey } from '../../../core/valving/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall, apiJob, ApiCallError, type JobProgress } from '../api-client';
@@ -277,10 +277,13 @@ function PickDetail(props: { pick: Pick; units: UnitSystem; title: string; kinds
         </tbody>
       </table>
       {p.sensitivity.length > 0 ? (
-        <table className="figures" aria-label={`One click either way from ${clicksText(p.clicks)}`}>
+        <table
+          className="figures"
+          aria-label={`The next setting on the map either way from ${clicksText(p.clicks)}`}
+        >
           <thead>
             <tr>
-              <th scope="col">One step</th>
+              <th scope="col">Step (in clicks)</th>
               <th scope="col">Clicks</th>
               <th scope="col">Score</th>
               <th scope="col">ζ bump change</th>
@@ -291,10 +294,8 @@ function PickDetail(props: { pick: Pick; units: UnitSystem; title: string; kinds
           <tbody>
             {p.sensitivity.map((s, i) => (
               <tr key={i}>
-                <td>
-                  {ADJUSTER_WORDS[s.adjuster]} {s.direction > 0 ? '+' : '−'}
-                </td>
-                <td>{s.available ? clicksText(s.clicks) : 'beyond the measured range'}</td>
+                <td>{valvingStepText(s, p.clicks)}</td>
+                <td>{s.available ? clicksText(s.clicks) : `${clicksText(s.clicks)}: not measured`}</td>
                 <td>{s.score === null ? '—' : numberFormat(s.score, 3)}</td>
                 <td>{s.change?.zetaBump === null || !s.change ? '—' : numberFormat(s.change.zetaBump, 3)}</td>
                 <td>

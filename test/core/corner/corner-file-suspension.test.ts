@@ -46,8 +46,11 @@ describe('corner inputs for the events', () => {
     const b = c.bumpStop as NonNullable<typeof c.bumpStop>;
     expect(bumpStopForce(b, 0.02)).toBe(0);
     expect(bumpStopForce(b, 0.035)).toBeCloseTo(1500, 9);
-    // The linear figures read the table's low-speed secant: 280 N at 0.05 m/s → 5600 N·s/m at the damper.
-    expect(cornerRideFigures(c).wheelDamping.bump).toBeCloseTo(5600 * 0.85 ** 2, 6);
+    // The linear figures read the table's least-squares bilinear fit, which these three points
+    // meet exactly [calc]: 150 N / 0.025 m/s = 6000 N·s/m below the knee, (620 − 280)/0.25 =
+    // 1360 N·s/m past it, the lines meeting at 212/4640 = 0.04569 m/s; at the wheel × 0.85².
+    expect(cornerRideFigures(c).wheelDamping.bump).toBeCloseTo(6000 * 0.85 ** 2, 5);
+    expect(cornerRideFigures(c).wheelDamping.bumpHighSpeed).toBeCloseTo(1360 * 0.85 ** 2, 5);
   });
 
   it('writes every new field back so that the file reads to the same corner, in SI and US units', () => {

@@ -3,6 +3,7 @@ import { testCorner } from '../test-corner';
 import { cornerRideFigures, type CornerInput } from '../../../core/corner/corner';
 import { cornerAnalyze } from '../../../core/figures/corner-analysis';
 import { WARNING_BANDS, cornerWarnings } from '../../../core/corner/warnings';
+import { MILLBROOK_FRONT_LEFT } from '../demo-corner';
 
 const corner = testCorner;
 const codes = (c: CornerInput) => cornerAnalyze({ name: '', corner: c }).warnings.map((w) => w.code);
@@ -89,5 +90,30 @@ describe('cornerWarnings', () => {
     const f = cornerRideFigures(corner({ springRate: 2500 }));
     const w = cornerWarnings(f);
     expect(w[0]?.message).toContain(f.rideFrequencyHz.toFixed(2));
+  });
+});
+
+describe('random-road warnings', () => {
+  const onRoad = (roadClass: 'C' | 'D', units: 'si' | 'us' = 'si') =>
+    cornerAnalyze({ name: '', corner: MILLBROOK_FRONT_LEFT, road: { roadClass, speed: 25 } }, { units });
+
+  it('warns when the dynamic tyre load RMS passes half the static load [trade]', () => {
+    // Common practice: above about half the static load the tyre is barely in contact.
+    expect(WARNING_BANDS.tireLoadRmsRatio.high).toBe(0.5);
+    const c = onRoad('C');
+    const d = onRoad('D');
+    // README's worked example: 35.5 % on class C at 90 km/h. ISO 8608 [pub]: each class doubles
+    // the road's RMS height, so the linear model's tyre load RMS doubles too: 71.1 % on class D.
+    expect(c.randomRoad?.tireLoadRmsRatio).toBeCloseTo(0.355, 3);
+    expect(d.randomRoad?.tireLoadRmsRatio).toBeCloseTo(2 * (c.randomRoad?.tireLoadRmsRatio as number), 9);
+    expect(c.warnings.map((w) => w.code)).not.toContain('tyre-load-rms-high');
+    const w = d.warnings.find((x) => x.code === 'tyre-load-rms-high');
+    expect(w?.field).toBe('road');
+    expect(w?.message).toMatch(
+      /^On the class D road at 90\.0 km\/h the dynamic tyre load RMS is 71 % of the static load, above 50 %: the tyre is barely in contact/,
+    );
+    expect(onRoad('D', 'us').warnings.find((x) => x.code === 'tyre-load-rms-high')?.message).toMatch(
+      /class D road at 55\.9 mph/,
+    );
   });
 });

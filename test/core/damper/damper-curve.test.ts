@@ -2,7 +2,6 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { cubicHermiteAt, cubicHermiteMonotone } from '../../../core/numeric/cubic-hermite';
 import {
-  DAMPER_TABLE_LOW_SPEED_LIMIT,
   damperCurveFit,
   damperCurveParse,
   damperCurveToFile,
@@ -14,6 +13,8 @@ import {
   damperDirectionToFile,
   damperForce,
   damperShaftForce,
+  damperTablePointsOf,
+  damperTableSlopeCurve,
   type DamperDirectionCurve,
   type DamperPoint,
 } from '../../../core/damper/damper-curve';
@@ -36,12 +37,52 @@ describe('monotone cubic (Fritsch–Carlson)', () => {
     // (0,0), (1,1), (2,4): secants 1 and 3, equal cells → harmonic mean 2·1·3/(1+3) = 1.5 [calc]
     const c = cubicHermiteMonotone([0, 1, 2], [0, 1, 4]);
     expect(c.slope[1]).toBeCloseTo(1.5, 15);
-    // ends take the end secants, so the straight continuation joins smoothly
-    expect(c.slope[0]).toBe(1);
-    expect(c.slope[2]).toBe(3);
-    expect(cubicHermiteAt(c, 3)).toBe(7);
-    expect(cubicHermiteAt(c, 2.5, 1)).toBe(3);
-    expect(cubicHermiteAt(c, -1)).toBe(-1);
+    // [pub] Moler, Numerical Computing with MATLAB §3.4 (pchipend): d = ((2h1 + h2)δ1 − h1δ2)/(h1 + h2).
+    // Left: ((2 + 1)·1 − 1·3)/2 = 0 [calc]; right: ((2 + 1)·3 − 1·1)/2 = 4 [calc]
+    expect(c.slope[0]).toBe(0);
+    expect(c.slope[2]).toBe(4);
+    // the straight continuation carries the end slope: 4 + 4·1 = 8, −0 below zero [calc]
+    expect(cubicHermiteAt(c, 3)).toBe(8);
+    expect(cubicHermiteAt(c, 2.5, 1)).toBe(4);
+    expect(cubicHermiteAt(c, -1)).toBe(0);
+  });
+
+  it('takes the end slopes from the three-point formula of PCHIP, written out here', () => {
+    // [pub] Fritsch & Carlson 1980 / Moler, Numerical Computing with MATLAB §3.4, pchipend:
+    // d = ((2h1 + h2)δ1 − h1δ2)/(h1 + h2); d = 0 when sign(d) ≠ sign(δ1); d = 3δ1 when the
+    // secants change sign and |d| > |3δ1|. Written out again independently of core [calc].
+    const endSlope = (h1: number, h2: number, d1: number, d2: number) => {
+      const d = ((2 * h1 + h2) * d1 - h1 * d2) / (h1 + h2);
+      if (Math.sign(d) !== Math.sign(d1)) return 0;
+      if (Math.sign(d1) !== Math.sign(d2) && Math.abs(d) > 3 * Math.abs(d1)) return 3 * d1;
+      return d;
+    };
+    // A small progressive bump-stop table: x (mm) 0, 2, 5, 10 and force (N) 0, 100, 400, 1600.
+    const x = [0, 2, 5, 10];
+    const y = [0, 100, 400, 1600];
+    const c = cubicHermiteMonotone(x, y);
+    // δ = 50, 100, 240; h = 2, 3, 5.
+    // left: ((4 + 3)·50 − 2·100)/5 = 30 [calc]; right: ((10 + 3)·240 − 5·100)/8 = 327.5 [calc]
+    expect(c.slope[0]).toBeCloseTo(endSlope(2, 3, 50, 100), 12);
+    expect(c.slope[0]).toBeCloseTo(30, 12);
+    expect(c.slope[3]).toBeCloseTo(endSlope(5, 3, 240, 100), 12);
+    expect(c.slope[3]).toBeCloseTo(327.5, 12);
+    // Past the last point the force continues with that slope: 1600 + 327.5·2 = 2255 N [calc]
+    expect(cubicHermiteAt(c, 12)).toBeCloseTo(2255, 9);
+    // Data that turn at the end: (0, 0), (1, 3), (2, 2): δ = 3, −1; left ((2 + 1)·3 + 1)/2 = 5 ≤ 9 [calc];
+    // right: ((2 + 1)·(−1) − 3)/2 = −3, |−3| ≤ |3·(−1)| kept [calc]
+    const turn = cubicHermiteMonotone([0, 1, 2], [0, 3, 2]);
+    expect(turn.slope[0]).toBeCloseTo(endSlope(1, 1, 3, -1), 12);
+    expect(turn.slope[0]).toBeCloseTo(5, 12);
+    expect(turn.slope[2]).toBeCloseTo(-3, 12);
+    // A steep turn is limited to 3δ1: (0, 0), (1, 1), (1.1, 0): δ = 1, −10; h = 1, 0.1;
+    // d = ((2 + 0.1)·1 + 10)/1.1 = 11 > 3 → 3 [calc]
+    expect(cubicHermiteMonotone([0, 1, 1.1], [0, 1, 0]).slope[0]).toBeCloseTo(3, 12);
+    // The sign rule: (0, 0), (1, 1), (2, 5): d = ((2 + 1)·1 − 4)/2 = −0.5, sign differs → 0 [calc]
+    expect(cubicHermiteMonotone([0, 1, 2], [0, 1, 5]).slope[0]).toBe(0);
+    // Two knots: both slopes the secant.
+    const two = cubicHermiteMonotone([0, 2], [0, 6]);
+    expect([two.slope[0], two.slope[1]]).toEqual([3, 3]);
   });
 
   it('puts a zero slope at a local extremum, so the curve never overshoots it', () => {
@@ -99,23 +140,58 @@ describe('tabulated damper direction', () => {
     for (const p of (BENCH as { points: readonly DamperPoint[] }).points) {
       expect(damperDirectionForce(BENCH, p.velocity)).toBeCloseTo(p.force, 10);
     }
-    // Past 0.6 m/s the slope of the last segment: (850 − 620)/0.3 = 766.7 N·s/m [calc]
-    const slope = (850 - 620) / 0.3;
+    // Past 0.6 m/s the PCHIP end slope [pub] (Moler §3.4): δ1 = (850 − 620)/0.3, δ2 = (620 − 400)/0.2,
+    // ((2·0.3 + 0.2)·δ1 − 0.3·δ2)/0.5 = 566.7 N·s/m [calc]
+    const slope = ((0.8 * 230) / 0.3 - (0.3 * 220) / 0.2) / 0.5;
     expect(damperDirectionForce(BENCH, 1)).toBeCloseTo(850 + 0.4 * slope, 9);
     expect(damperDirectionDataLimit(BENCH)).toBe(0.6);
     expect(damperDirectionDataLimit({ kind: 'linear', coefficient: 1000 })).toBeNull();
   });
 
-  it('gives the linear figures a low-speed slope to 0.05 m/s and a high-speed slope beyond', () => {
+  it('gives the linear figures the least-squares bilinear fit of the points, knee found from the data', () => {
     const s = damperDirectionSlopes(BENCH);
-    expect(DAMPER_TABLE_LOW_SPEED_LIMIT).toBe(0.05);
-    // [calc] F(0.05) = 280 N → 5600 N·s/m; (850 − 280)/(0.6 − 0.05) = 1036.4 N·s/m
-    expect(s.lowSpeed).toBeCloseTo(5600, 9);
-    expect(s.highSpeed).toBeCloseTo(570 / 0.55, 9);
-    expect(s.kneeSpeed).toBe(0.05);
-    // Data that stop before the limit give one slope, the secant to the last point.
+    // [calc] numpy lstsq of F = c_ls·min(v, k) + c_hs·max(v − k, 0) over a 200 001-knot scan and
+    // scipy's bounded minimize_scalar of the residual in k: c_ls = 5680, c_hs = 889.474 N·s/m,
+    // k = 0.068227 m/s (c_ls is then the fit through zero of the two points below the knee:
+    // (0.025·150 + 0.05·280)/(0.025² + 0.05²) = 5680 [calc]).
+    expect(s.lowSpeed).toBeCloseTo(5680, 4);
+    expect(s.highSpeed).toBeCloseTo(889.4737, 3);
+    expect(s.kneeSpeed as number).toBeCloseTo(0.068227, 5);
+    // The same numbers as the bench fit of the same points: one rule.
+    const fit = damperDirectionFit((BENCH as { points: readonly DamperPoint[] }).points).curve;
+    expect([s.lowSpeed, s.highSpeed, s.kneeSpeed]).toEqual([fit.lowSpeed, fit.highSpeed, fit.kneeSpeed]);
+    expect(damperTableSlopeCurve((BENCH as { points: readonly DamperPoint[] }).points)).toEqual(fit);
+    // One point: its secant, one straight line [calc].
     const short = damperDirectionSlopes({ kind: 'table', points: [{ velocity: 0.03, force: 90 }] });
-    expect(short).toEqual({ lowSpeed: 3000, highSpeed: 3000, kneeSpeed: null });
+    expect(short.lowSpeed).toBeCloseTo(3000, 9);
+    expect(short.highSpeed).toBeCloseTo(3000, 9);
+    expect(short.kneeSpeed).toBeNull();
+    // Two points: through both exactly, knee at the first: 90/0.03 = 3000, (150 − 90)/0.07 = 857.1 [calc].
+    const two = damperDirectionSlopes({
+      kind: 'table',
+      points: [
+        { velocity: 0.03, force: 90 },
+        { velocity: 0.1, force: 150 },
+      ],
+    });
+    expect(two.lowSpeed).toBeCloseTo(3000, 9);
+    expect(two.highSpeed).toBeCloseTo(60 / 0.07, 9);
+    expect(two.kneeSpeed).toBe(0.03);
+  });
+
+  it('makes measured points a table: rising speed, one averaged point per speed', () => {
+    expect(
+      damperTablePointsOf([
+        { velocity: 0.2, force: 500 },
+        { velocity: 0.05, force: 300 },
+        { velocity: 0.2, force: 520 },
+        { velocity: 0, force: 10 },
+        { velocity: 0.1, force: NaN },
+      ]),
+    ).toEqual([
+      { velocity: 0.05, force: 300 },
+      { velocity: 0.2, force: 510 },
+    ]);
   });
 
   it('signs the force by direction and adds the gas force only to the shaft force', () => {

@@ -3,14 +3,19 @@ import { describe, expect, it } from 'vitest';
 import { InputError } from '../../../core/units/input-error';
 import {
   valvingCellIndex,
+  valvingCellSlopes,
   valvingCurvesOf,
   valvingMapOf,
+  type ValvingCurveCell,
   type ValvingRun,
 } from '../../../core/valving/valving-map';
 import { inputErrorOf } from '../../input-error-fixture';
 import { benchRunOf, bilinear, bilinearForce, PLAIN_CORNER } from '../valving-fixture';
 
 const linear = (c: number) => (v: number) => c * v;
+
+/** A cell's slopes by the one rule (the least-squares bilinear fit of its curves). */
+const slopesOf = (cell: ValvingCurveCell | undefined) => valvingCellSlopes((cell as ValvingCurveCell).damper);
 
 /** A grid of runs, bump × rebound clicks, each click softening the low-speed slope by `step`. */
 function gridRuns(
@@ -81,8 +86,8 @@ describe('valving map: ζ per click', () => {
     ];
     const cell = valvingMapOf(valvingCurvesOf(runs), PLAIN_CORNER).cells[0];
     // The fit of noise-free bilinear points recovers the curve [calc: least squares of exact data].
-    expect(cell?.damper.bump.lowSpeed).toBeCloseTo(3000, 3);
-    expect(cell?.damper.bump.highSpeed).toBeCloseTo(1000, 3);
+    expect(slopesOf(cell).bump.lowSpeed).toBeCloseTo(3000, 3);
+    expect(slopesOf(cell).bump.highSpeed).toBeCloseTo(1000, 3);
     expect(cell?.figures.kneeSpeed.bump).toBeCloseTo(0.06, 6);
     expect(cell?.figures.dampingRatio.bumpHighSpeed).toBeCloseTo((1000 * 0.81) / 7634.632, 5);
   });
@@ -122,12 +127,12 @@ describe('valving map: ζ per click', () => {
     expect(mid?.runIds).toEqual([lo?.runIds[0], hi?.runIds[0]].sort((a, b) => (a as number) - (b as number)));
     // One third of the way from click 0 to click 3 [calc].
     const third = (x: number, y: number) => x + (y - x) / 3;
-    expect(mid?.damper.bump.lowSpeed).toBeCloseTo(
-      third(lo?.damper.bump.lowSpeed as number, hi?.damper.bump.lowSpeed as number),
+    expect(slopesOf(mid).bump.lowSpeed).toBeCloseTo(
+      third(slopesOf(lo).bump.lowSpeed as number, slopesOf(hi).bump.lowSpeed as number),
       9,
     );
-    expect(mid?.damper.bump.highSpeed).toBeCloseTo(
-      third(lo?.damper.bump.highSpeed as number, hi?.damper.bump.highSpeed as number),
+    expect(slopesOf(mid).bump.highSpeed).toBeCloseTo(
+      third(slopesOf(lo).bump.highSpeed as number, slopesOf(hi).bump.highSpeed as number),
       9,
     );
     // Both axes between measured settings: the four corners, bilinearly [calc].
@@ -135,10 +140,10 @@ describe('valving map: ζ per click', () => {
     const corners = [at(0, 0), at(0, 4), at(3, 0), at(3, 4)];
     const w = [(2 / 3) * 0.5, (2 / 3) * 0.5, (1 / 3) * 0.5, (1 / 3) * 0.5];
     const expected = corners.reduce(
-      (s, c, i) => s + (w[i] as number) * (c?.damper.rebound.lowSpeed as number),
+      (s, c, i) => s + (w[i] as number) * (slopesOf(c).rebound.lowSpeed as number),
       0,
     );
-    expect(centre?.damper.rebound.lowSpeed).toBeCloseTo(expected, 9);
+    expect(slopesOf(centre).rebound.lowSpeed).toBeCloseTo(expected, 9);
     expect(centre?.runIds).toHaveLength(4);
   });
 
@@ -172,7 +177,7 @@ describe('valving map: ζ per click', () => {
     const curves = valvingCurvesOf([newer, older, noClicks, bumpOnly, broken]);
     expect(curves.cells).toHaveLength(1);
     expect(curves.cells[0]?.runIds).toEqual([2]);
-    expect(curves.cells[0]?.damper.bump.lowSpeed).toBeCloseTo(3500, 3);
+    expect(slopesOf(curves.cells[0]).bump.lowSpeed).toBeCloseTo(3500, 3);
     expect(curves.notes.join('\n')).toMatch(/run #3 records no bump or rebound clicks/);
     expect(curves.notes.join('\n')).toMatch(/no run at bump 3 rebound 0 has a rebound curve/);
     expect(curves.notes.join('\n')).toMatch(/run #5 has an unusable bump fit/);

@@ -4,7 +4,7 @@ import { valvingCompare } from '../../../core/valving/valving-compare';
 import { valvingComboEvaluate } from '../../../core/valving/valving-evaluate';
 import type { ValvingCurves } from '../../../core/valving/valving-map';
 import { VALVING_PRESETS } from '../../../core/valving/valving-presets';
-import { valvingBalanceOf, valvingRank } from '../../../core/valving/valving-rank';
+import { valvingBalanceOf, valvingRank, valvingStepText } from '../../../core/valving/valving-rank';
 import { valvingSweepSerial } from '../../../core/valving/valving-sweep';
 import type { ValvingTargets } from '../../../core/valving/valving-targets';
 import { setupFileParse } from '../../../core/setup/setup-file';
@@ -134,6 +134,63 @@ describe('valving ranking', () => {
     expect(b?.flatRide).toMatchObject({ low: 1.1, high: 1.2, met: true, source: { tag: 'trade' } });
     expect(r.objective).toMatch(/^score = Σ weight × \(miss ÷ scale\)²/);
     expect(valvingBalanceOf([{ position: 'FL', figures: figures[0]?.[0] as never }])).toBeNull();
+  });
+
+  it('warns when the best pick sits at the stiffest or softest click on the map', () => {
+    // Bump click 0 is the stiffest (6000 N·s/m), click 4 the softest (2800 N·s/m).
+    const stiff = valvingRank(job, curves, figures, {
+      bumpLowSpeed: { ...TARGETS.bumpLowSpeed!, low: 0.7, high: 0.9 },
+    }).corners[0]?.best[0];
+    expect(stiff?.clicks.bump).toBe(0);
+    const atEnd = stiff?.warnings.find((w) => w.code === 'best-at-range-end-bump');
+    expect(atEnd?.message).toMatch(
+      /^The best pick is at the stiffest of the bump clicks on the map \(bump 0\)/,
+    );
+    expect(atEnd?.message).toMatch(/range may be too narrow; check the maker's adjuster range/);
+    const soft = valvingRank(job, curves, figures, {
+      bumpLowSpeed: { low: 0, high: 0.3, scale: 0.1, weight: 1, source: user },
+    }).corners[0];
+    expect(soft?.best[0]?.warnings.find((w) => w.code === 'best-at-range-end-bump')?.message).toMatch(
+      /the softest of the bump clicks on the map \(bump 4\)/,
+    );
+    // Only the best pick is warned; a pick inside the range is not.
+    expect(soft?.best[1]?.warnings.some((w) => w.code.startsWith('best-at-range-end'))).toBe(false);
+    const inside = valvingRank(job, curves, figures, TARGETS).corners[0]?.best[0];
+    expect(inside?.clicks).toEqual({ bump: 2, rebound: 3 });
+    expect(inside?.warnings.some((w) => w.code.startsWith('best-at-range-end'))).toBe(false);
+  });
+
+  it('names a step in clicks where only some clicks were measured', () => {
+    // Runs at bump 6 and 12 only: one step on the map from 6 is six clicks.
+    const sparse: Pick<ValvingCurves, 'axes' | 'cells'> = {
+      axes: [
+        { adjuster: 'bump', clicks: [6, 12], measured: [6, 12] },
+        { adjuster: 'rebound', clicks: [6, 12], measured: [6, 12] },
+      ],
+      cells: [6, 12].flatMap((b) =>
+        [6, 12].map((r) =>
+          cellOf(
+            { bump: b, rebound: r },
+            bilinear(6000 - 300 * b, 0.06, 2000),
+            bilinear(9000 - 300 * r, 0.06, 3000),
+          ),
+        ),
+      ),
+    };
+    const sparseJob = valvingJobOf(sparse, [{ position: 'FL', corner: PLAIN_CORNER }], job.scenario);
+    const pick = valvingRank(sparseJob, sparse, valvingSweepSerial(sparseJob), TARGETS).corners[0]?.best.find(
+      (p) => p.clicks.bump === 6 && p.clicks.rebound === 12,
+    );
+    expect(pick?.sensitivity.map((s) => valvingStepText(s, pick.clicks))).toEqual([
+      'bump +6 clicks',
+      'rebound −6 clicks',
+    ]);
+    expect(
+      valvingStepText(
+        { adjuster: 'reboundHighSpeed', clicks: { reboundHighSpeed: 3 } },
+        { reboundHighSpeed: 4 },
+      ),
+    ).toBe('high-speed rebound −1 click');
   });
 
   it('carries the model warnings of each pick', () => {
