@@ -58,6 +58,7 @@ export function setupSaveHandler(
   const parentNumber = input.basedOnRevision ?? file.basedOnRevision;
   const saved = setupSave(store, v, file.sheet, {
     units: input.units,
+    newDamperUnits: input.newDamperUnits ?? [],
     ...(parentNumber === undefined ? {} : { parentNumber }),
   });
   return {
