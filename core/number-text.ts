@@ -13,7 +13,9 @@ export const MESSAGE_SIGNIFICANT_FIGURES = 4;
 export function numberRounded(value: number, significant = MESSAGE_SIGNIFICANT_FIGURES): string {
   if (!Number.isFinite(value)) return String(value);
   if (value === 0) return '0';
-  return String(Number(value.toPrecision(significant)));
+  const rounded = Number(value.toPrecision(significant));
+  // Next to the largest double, rounding up overflows: keep the exponent form then.
+  return Number.isFinite(rounded) ? String(rounded) : value.toPrecision(significant);
 }
 
 /**

@@ -4,6 +4,7 @@ import { CAUTION_TEXT } from '../../../core/caution';
 import { cornerQuarterCar, cornerRideFigures } from '../../../core/corner';
 import { InputError } from '../../../core/input-error';
 import { modesOf } from '../../../core/modal';
+import { cornerInputWarnings } from '../../../core/plausible-range';
 import { SETUP_FIGURE_LABELS, setupDiff } from '../../../core/setup-diff';
 import { setupFileParse, setupFileWrite } from '../../../core/setup-file';
 import { CORNER_POSITIONS, type SetupSheet } from '../../../core/setup-sheet';
@@ -23,10 +24,10 @@ type CornerWarning = HandlerOutput<'setupShow'>['warnings'][number];
 function sheetWarnings(sheet: SetupSheet, units: UnitSystem): CornerWarning[] {
   return CORNER_POSITIONS.flatMap((p) => {
     const c = sheet.corners[p].analysis;
-    return cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c)), undefined, units).map((w) => ({
-      position: p,
-      ...w,
-    }));
+    return [
+      ...cornerInputWarnings(c, units),
+      ...cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c)), undefined, units),
+    ].map((w) => ({ position: p, ...w }));
   });
 }
 
