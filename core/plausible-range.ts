@@ -272,9 +272,11 @@ function valueText(value: number, r: PlausibleRange): string {
 export function plausibleRangeText(key: PlausibleKey, usual = false): string {
   const r: PlausibleRange = PLAUSIBLE_RANGES[key];
   const [low, high] = usual ? [r.usualLow, r.usualHigh] : [r.low, r.high];
-  if (r.kind === 'ratio') return `${numberRounded(low)}–${numberRounded(high)}`;
+  // A dash after a minus sign reads badly: "-15 to 15 °", not "-15–15 °".
+  const dash = low < 0 ? ' to ' : '–';
+  if (r.kind === 'ratio') return `${numberRounded(low)}${dash}${numberRounded(high)}`;
   const lowText = valueText(low, r).replace(/ [^ ]+$/, '');
-  return `${lowText}–${valueText(high, r)}`;
+  return `${lowText}${dash}${valueText(high, r)}`;
 }
 
 /**
@@ -305,10 +307,11 @@ export function plausibleUsualWarning(
   const r: PlausibleRange = PLAUSIBLE_RANGES[key];
   if (value >= r.usualLow && value <= r.usualHigh) return undefined;
   const text = (v: number) => (r.kind === 'ratio' ? numberRounded(v) : quantityRounded(v, r.kind, units));
+  const dash = r.usualLow < 0 ? ' to ' : '–';
   const range =
     r.kind === 'ratio'
-      ? `${numberRounded(r.usualLow)}–${numberRounded(r.usualHigh)}`
-      : `${text(r.usualLow).replace(/ [^ ]+$/, '')}–${text(r.usualHigh)}`;
+      ? `${numberRounded(r.usualLow)}${dash}${numberRounded(r.usualHigh)}`
+      : `${text(r.usualLow).replace(/ [^ ]+$/, '')}${dash}${text(r.usualHigh)}`;
   return {
     code: `unusual-${key}`,
     field,

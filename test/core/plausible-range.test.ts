@@ -23,6 +23,20 @@ const demo = JSON.parse(
 
 const cornerWith = (over: Record<string, unknown>) => ({ ...demo.corner, ...over });
 
+describe('the README', () => {
+  it('states every plausible range and its reason as the program has them', () => {
+    const readme = readFileSync(new URL('../../README.md', import.meta.url), 'utf8');
+    const cell = (t: string) => ` ${t.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')} +\\|`;
+    for (const [key, r] of Object.entries(PLAUSIBLE_RANGES)) {
+      const k = key as keyof typeof PLAUSIBLE_RANGES;
+      const row = new RegExp(
+        `\\|${cell(plausibleRangeText(k))}${cell(plausibleRangeText(k, true))}${cell(r.reason)}`,
+      );
+      expect(readme, key).toMatch(row);
+    }
+  });
+});
+
 describe('numberRounded', () => {
   it('writes a number as people do: at most 4 significant figures, no float noise', () => {
     expect(numberRounded(0.009000000000000001)).toBe('0.009');
@@ -47,7 +61,13 @@ describe('numberRounded', () => {
     fc.assert(
       fc.property(fc.double({ min: -1e300, max: 1e300, noNaN: true }), (x) => {
         const text = numberRounded(x);
-        const digits = text.replace(/^-/, '').replace(/e.*$/, '').replace('.', '').replace(/^0+/, '');
+        // Trailing zeros of a whole number hold its place, not its precision.
+        const digits = text
+          .replace(/^-/, '')
+          .replace(/e.*$/, '')
+          .replace('.', '')
+          .replace(/^0+/, '')
+          .replace(/0+$/, '');
         expect(digits.length).toBeLessThanOrEqual(4);
         // Within rounding to 4 significant figures [calc: half a unit in the 4th figure].
         if (x !== 0) expect(Math.abs(Number(text) - x) / Math.abs(x)).toBeLessThanOrEqual(5e-4);
@@ -65,6 +85,7 @@ describe('plausible ranges', () => {
       expect(r.reason.length, key).toBeGreaterThan(10);
     }
     expect(plausibleRangeText('cornerMass')).toBe('5–5000 kg');
+    expect(plausibleRangeText('camber')).toBe('-15 to 15 °');
     expect(plausibleRangeText('motionRatio')).toBe('0.2–2');
   });
 
