@@ -19,6 +19,17 @@ export function numberRounded(value: number, significant = MESSAGE_SIGNIFICANT_F
 }
 
 /**
+ * Two numbers for one message, rounded as `numberRounded` does but with as many more figures
+ * as it takes to tell them apart when they differ ("1.2344 s is not after 1.2345 s").
+ */
+export function numbersRoundedApart(a: number, b: number): [string, string] {
+  let significant = MESSAGE_SIGNIFICANT_FIGURES;
+  while (a !== b && significant < 17 && numberRounded(a, significant) === numberRounded(b, significant))
+    significant++;
+  return [numberRounded(a, significant), numberRounded(b, significant)];
+}
+
+/**
  * An SI value for a message, in the display unit of `system` with its label, rounded by
  * `numberRounded` ("0.009 s", "1e+300 kg", "372.6 lbf/in").
  */
