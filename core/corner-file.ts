@@ -2,6 +2,7 @@ import { REBOUND_LIMIT_DEFAULT_RATE, type BumpStop } from './bump-stop';
 import { cornerValidate, type CornerInput } from './corner';
 import { damperCurveParse, damperCurveToFile } from './damper-curve';
 import { InputError, inputFieldPath } from './input-error';
+import { numberRounded } from './number-text';
 import { cornerPlausibleCheck, plausibleCheck, type PlausibleKey } from './plausible-range';
 import { pointTableParse, pointTableToFile } from './point-table';
 import { ISO8608_CLASSES, type Iso8608Class } from './random-road';
@@ -47,7 +48,10 @@ function requiredQuantity(o: Obj, key: string, kind: QuantityKind, field: string
 function positiveQuantity(o: Obj, key: string, kind: QuantityKind, field: string): number {
   const v = requiredQuantity(o, key, kind, field);
   if (!(v > 0))
-    throw new InputError(inputFieldPath(field, key), `must be greater than zero (got ${v} in SI)`);
+    throw new InputError(
+      inputFieldPath(field, key),
+      `must be greater than zero (got ${numberRounded(v)} in SI)`,
+    );
   return v;
 }
 

@@ -49,7 +49,7 @@ function speedCheck(speed: number, field: string): void {
   if (!Number.isFinite(speed) || !(speed > 0)) {
     throw new InputError(
       inputFieldPath(field, 'speed'),
-      `speed must be greater than zero (got ${speed} m/s)`,
+      `speed must be greater than zero (got ${numberRounded(speed)} m/s)`,
     );
   }
   plausibleCheck(speed, 'eventSpeed', inputFieldPath(field, 'speed'));
