@@ -385,14 +385,11 @@ function ImportPanel(props: {
   preview: BenchFilePreview;
   dampers: Damper[];
   units: UnitSystem;
-  initialDamper: string;
   onClose: () => void;
   onImported: (r: ImportResult) => void;
 }) {
   const { preview, units } = props;
-  const [mapping, setMapping] = useState<BenchMapping>(() =>
-    benchMappingDefault(preview, props.initialDamper),
-  );
+  const [mapping, setMapping] = useState<BenchMapping>(() => benchMappingDefault(preview));
   const mappingUnits = useRef(units);
   const [job, setJob] = useState<{ stage: string; controller: AbortController } | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
@@ -746,7 +743,6 @@ export function DampersScreen() {
             preview={preview}
             dampers={dampers}
             units={app.units}
-            initialDamper={selected ?? ''}
             onClose={() => setPreview(null)}
             onImported={(r) => {
               setPreview(null);
