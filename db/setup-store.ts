@@ -85,7 +85,7 @@ function sheetDamperUnitsCheck(
     if (declared.has(key) || damperUnitByKey(db, key)) continue;
     throw new InputError(
       `corners.${p}.damperUnit`,
-      `damper unit "${label}" is not in the library (${damperLabelsText(db)}); check the spelling, or name it as a new damper unit when saving (on the command line: --new-damper "${label}")`,
+      `damper unit "${label}" is not in the library (${damperLabelsText(db)}); check the spelling, or name it as a new damper unit when saving`,
     );
   }
   for (const label of newDamperUnits)

@@ -145,7 +145,7 @@ describe('rideledger refuses physics that cannot be', () => {
     writeFileSync(file, JSON.stringify(setup));
     await refused(
       ['setup', 'save', file],
-      /^rideledger setup: corners\.RR\.damperUnit: damper unit "MB-DA-44" is not in the library \(the library has "MB-DA-1", "MB-DA-2", "MB-DA-3", "MB-DA-4"\); check the spelling, or name it as a new damper unit when saving \(on the command line: --new-damper "MB-DA-44"\)/,
+      /^rideledger setup: corners\.RR\.damperUnit: damper unit "MB-DA-44" is not in the library \(the library has "MB-DA-1", "MB-DA-2", "MB-DA-3", "MB-DA-4"\); check the spelling, or name it as a new damper unit when saving \(--new-damper "MB-DA-44"\)\n$/,
     );
     await refused(
       ['setup', 'save', file, '--new-damper', 'MB-DA-44', '--new-damper', 'MB-DA-5'],

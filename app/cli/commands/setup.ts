@@ -234,6 +234,10 @@ export async function setupCommand(args: string[], io: CliIo): Promise<number> {
           // The option's own name, not the API's, in a message the command prints.
           if (e instanceof InputError && e.field === 'newDamperUnits')
             throw new InputError('--new-damper', e.problem);
+          const unknown =
+            e instanceof InputError ? /^damper unit (".*") is not in the library/.exec(e.problem) : null;
+          if (e instanceof InputError && unknown)
+            throw new InputError(e.field, `${e.problem} (--new-damper ${unknown[1]})`);
           throw e;
         }),
       );
