@@ -128,9 +128,10 @@ export function analysisOptionsRead(
       bump = attempt(() => bumpSpecParse(trial, 'bump'));
       if (!bump && problems.size === before) break;
       for (const [key, placeholder] of [
-        ['height', '1 m'],
+        // Stand-ins inside every plausible range (core/plausible-range.ts), so they raise nothing.
+        ['height', '25 mm'],
         ['length', '1 m'],
-        ['speed', '1 m/s'],
+        ['speed', '10 m/s'],
       ] as const)
         if (problems.has(OPTION_FIELDS[`bump.${key}`] as keyof AnalysisOptionTexts)) trial[key] = placeholder;
     }
