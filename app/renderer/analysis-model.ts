@@ -21,6 +21,7 @@ import {
   type UnitSystem,
 } from '../../core/units';
 import { cornerWarnings, type ModelWarning } from '../../core/warnings';
+import { cornerInputWarnings } from '../../core/plausible-range';
 import type { BarSeries, PlotSeries } from './components/plot-data';
 import { quantityDisplayFactor, quantityFieldConvert, quantityFieldValue } from './quantity-field';
 
@@ -223,6 +224,7 @@ export function setupAnalyze(
     const h = sim.history;
     if (!h) throw new Error('the simulation returned no history');
     const warningsIn = (units: UnitSystem) => [
+      ...cornerInputWarnings(corner, units),
       ...cornerWarnings(linear.figures, linear.modes, linear.step, units),
       ...eventWarnings(corner, event, sim.metrics, units),
     ];
