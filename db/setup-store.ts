@@ -5,6 +5,7 @@ import { CORNER_POSITIONS, type SetupSheet } from '../core/setup/setup-sheet';
 import { nameKey } from '../core/units/text-field';
 import type { UnitSystem } from '../core/units/units';
 import { damperUnitEnsure } from './damper-units';
+import { damperUnitByKey, damperUnitList } from './queries/damper-unit';
 import { setupCornerInsert, setupCornersOf } from './queries/setup-corner';
 import {
   setupRevisionById,
@@ -55,21 +56,76 @@ export function setupRevisionResolve(
   );
 }
 
+/** The library's labels for a message: quoted, the first twenty and how many more. */
+function damperLabelsText(db: Database.Database): string {
+  const labels = damperUnitList(db).map((d) => `"${d.label}"`);
+  if (labels.length === 0) return 'the library is empty';
+  const shown = labels.slice(0, 20).join(', ');
+  return `the library has ${shown}${labels.length > 20 ? ` and ${labels.length - 20} more` : ''}`;
+}
+
+/**
+ * The damper units a sheet names, checked against the library: a label the library lacks is
+ * added only when `newDamperUnits` names it, so that a typo never becomes a new unit.
+ * @throws InputError naming the corner's damperUnit (with the known labels), or a new label no corner uses.
+ */
+function sheetDamperUnitsCheck(
+  db: Database.Database,
+  sheet: SetupSheet,
+  newDamperUnits: readonly string[],
+  field: string,
+): void {
+  const declared = new Set(newDamperUnits.map(nameKey));
+  const named = new Set<string>();
+  for (const p of CORNER_POSITIONS) {
+    const label = sheet.corners[p].damperUnit;
+    if (label === '') continue;
+    const key = nameKey(label);
+    named.add(key);
+    if (declared.has(key) || damperUnitByKey(db, key)) continue;
+    throw new InputError(
+      `corners.${p}.damperUnit`,
+      `damper unit "${label}" is not in the library (${damperLabelsText(db)}); check the spelling, or name it as a new damper unit when saving`,
+    );
+  }
+  for (const label of newDamperUnits)
+    if (!named.has(nameKey(label)))
+      throw new InputError(
+        field,
+        `"${label}" is named as a new damper unit but no corner of the sheet uses it; check its spelling against the sheet's damperUnit fields`,
+      );
+}
+
 /**
  * Saves a sheet as a new revision of a vehicle, never overwriting: the next number, linked
  * to its parent (the newest revision unless another is named), with a one-line summary of
- * what changed from the parent. Damper labels new to the library are added to it. One
- * transaction: on any error nothing is stored.
- * @throws InputError when the parent revision does not exist, or when the sheet is its parent's exactly.
+ * what changed from the parent. A damper label the library lacks is refused unless
+ * `newDamperUnits` names it, when it is added. One transaction: on any error nothing is stored.
+ * @throws InputError when the parent revision does not exist, when the sheet is its parent's
+ * exactly, or when it names a damper unit that is neither in the library nor declared new.
  */
 export function setupSave(
   store: Store,
   vehicle: VehicleRow,
   sheet: SetupSheet,
-  options: { parentNumber?: number; now?: Date; units?: UnitSystem } = {},
+  options: {
+    parentNumber?: number;
+    now?: Date;
+    units?: UnitSystem;
+    /** Labels the sheet names that are to be added to the library as new damper units. */
+    newDamperUnits?: readonly string[];
+    /** The field that holds `newDamperUnits`, for messages. */
+    newDamperUnitsField?: string;
+  } = {},
 ): SetupSaveResult {
   const db = store.db;
   return storeTransaction(store, () => {
+    sheetDamperUnitsCheck(
+      db,
+      sheet,
+      options.newDamperUnits ?? [],
+      options.newDamperUnitsField ?? 'newDamperUnits',
+    );
     const now = (options.now ?? new Date()).toISOString();
     const latest = setupRevisionLatest(db, vehicle.id);
     const parent =

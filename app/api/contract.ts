@@ -104,6 +104,8 @@ export const contract = {
       basedOnRevision: z.number().int().positive().optional(),
       /** The unit system the summary of what changed is written in (the sheet is stored SI). */
       units: unitSystemSchema,
+      /** Damper labels of the sheet to add to the library; any other label the library lacks is refused. */
+      newDamperUnits: z.array(z.string().max(200)).max(16).optional(),
     }),
     output: z.strictObject({
       vehicle: vehicleNamed,

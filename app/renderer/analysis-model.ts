@@ -26,6 +26,7 @@ import {
   type UnitSystem,
 } from '../../core/units/units';
 import { cornerWarnings, type ModelWarning } from '../../core/corner/warnings';
+import { cornerInputWarnings } from '../../core/corner/plausible-range';
 import type { BarSeries, PlotSeries } from './components/plot-data';
 import { quantityDisplayFactor, quantityFieldConvert, quantityFieldValue } from './quantity-field';
 
@@ -133,9 +134,10 @@ export function analysisOptionsRead(
       bump = attempt(() => bumpSpecParse(trial, 'bump'));
       if (!bump && problems.size === before) break;
       for (const [key, placeholder] of [
-        ['height', '1 m'],
+        // Stand-ins inside every plausible range (core/plausible-range.ts), so they raise nothing.
+        ['height', '25 mm'],
         ['length', '1 m'],
-        ['speed', '1 m/s'],
+        ['speed', '10 m/s'],
       ] as const)
         if (problems.has(OPTION_FIELDS[`bump.${key}`] as keyof AnalysisOptionTexts)) trial[key] = placeholder;
     }
@@ -227,6 +229,7 @@ export function setupAnalyze(
     const h = sim.history;
     if (!h) throw new Error('the simulation returned no history');
     const warningsIn = (units: UnitSystem) => [
+      ...cornerInputWarnings(corner, units),
       ...cornerWarnings(linear.figures, linear.modes, linear.step, units),
       ...eventWarnings(corner, event, sim.metrics, units),
     ];

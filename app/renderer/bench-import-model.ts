@@ -87,15 +87,19 @@ const blankRoles = (): Record<BenchColumnRole, string> => ({
   displacement: '',
 });
 
-/** The mapping a file starts with: its kind as the header suggests, columns by name, SI, compression positive. */
-export function benchMappingDefault(preview: BenchFilePreview, damper = ''): BenchMapping {
+/**
+ * The mapping a file starts with: its kind as the header suggests, columns by name, SI,
+ * compression positive, and no damper — the unit last viewed is not a guess worth making,
+ * since a run stored under the wrong unit is hard to see and cannot be moved.
+ */
+export function benchMappingDefault(preview: BenchFilePreview): BenchMapping {
   return {
     kind: preview.kindGuess ?? 'points',
     columns: blankRoles(),
     units: blankRoles(),
     compression: 'positive',
     clicks: '',
-    damper,
+    damper: '',
     date: '',
     stroke: '',
     testFrequency: '',

@@ -2,6 +2,8 @@ import { REBOUND_LIMIT_DEFAULT_RATE, type BumpStop } from '../damper/bump-stop';
 import { cornerValidate, type CornerInput } from './corner';
 import { damperCurveParse, damperCurveToFile } from '../damper/damper-curve';
 import { InputError, inputFieldPath } from '../units/input-error';
+import { numberRounded } from '../units/number-text';
+import { cornerPlausibleCheck, plausibleCheck, type PlausibleKey } from './plausible-range';
 import { pointTableParse, pointTableToFile } from '../damper/point-table';
 import { ISO8608_CLASSES, type Iso8608Class } from './random-road';
 import { numberParse, quantityParse, quantityText, type QuantityKind, type UnitSystem } from '../units/units';
@@ -46,8 +48,22 @@ function requiredQuantity(o: Obj, key: string, kind: QuantityKind, field: string
 function positiveQuantity(o: Obj, key: string, kind: QuantityKind, field: string): number {
   const v = requiredQuantity(o, key, kind, field);
   if (!(v > 0))
-    throw new InputError(inputFieldPath(field, key), `must be greater than zero (got ${v} in SI)`);
+    throw new InputError(
+      inputFieldPath(field, key),
+      `must be greater than zero (got ${numberRounded(v)} in SI)`,
+    );
   return v;
+}
+
+/** A positive quantity inside the plausible range of `range` (PLAUSIBLE_RANGES). */
+function plausibleQuantity(
+  o: Obj,
+  key: string,
+  kind: QuantityKind,
+  field: string,
+  range: PlausibleKey,
+): number {
+  return plausibleCheck(positiveQuantity(o, key, kind, field), range, inputFieldPath(field, key));
 }
 
 const CORNER_KEYS = [
@@ -98,7 +114,8 @@ function bumpStopParse(raw: unknown, field: string): BumpStop {
 
 /**
  * Reads and validates a corner (quantities as SI numbers or strings with units).
- * `damperMotionRatio` defaults to `springMotionRatio`, `tireDamping` to 0.
+ * `damperMotionRatio` defaults to `springMotionRatio`, `tireDamping` to 0. Every quantity must
+ * lie in its plausible range (PLAUSIBLE_RANGES, core/plausible-range.ts).
  * @throws InputError naming the field.
  */
 export function cornerInputParse(raw: unknown, field = 'corner'): CornerInput {
@@ -139,10 +156,11 @@ export function cornerInputParse(raw: unknown, field = 'corner'): CornerInput {
   if (o.travelLimit !== undefined)
     corner.travelLimit = quantityParse(o.travelLimit, 'length', at('travelLimit'));
   cornerValidate(corner, field);
+  cornerPlausibleCheck(corner, field);
   return corner;
 }
 
-/** Reads a road `{class, speed}`; the class is one of ISO 8608's A–H. */
+/** Reads a road `{class, speed}`; the class is one of ISO 8608's A–H, the speed within its plausible range. */
 export function roadSpecParse(raw: unknown, field = 'road'): RoadSpec {
   const o = objectParse(raw, field, ['class', 'speed']);
   const cls = required(o, 'class', field);
@@ -153,16 +171,19 @@ export function roadSpecParse(raw: unknown, field = 'road'): RoadSpec {
       `got ${JSON.stringify(cls)}; expected an ISO 8608 class, one of ${ISO8608_CLASSES.join(', ')}`,
     );
   }
-  return { roadClass: name as Iso8608Class, speed: positiveQuantity(o, 'speed', 'speed', field) };
+  return {
+    roadClass: name as Iso8608Class,
+    speed: plausibleQuantity(o, 'speed', 'speed', field, 'eventSpeed'),
+  };
 }
 
-/** Reads a bump `{height, length, speed}`. */
+/** Reads a bump `{height, length, speed}`, each within its plausible range (PLAUSIBLE_RANGES). */
 export function bumpSpecParse(raw: unknown, field = 'bump'): BumpSpec {
   const o = objectParse(raw, field, ['height', 'length', 'speed']);
   return {
-    height: positiveQuantity(o, 'height', 'length', field),
-    length: positiveQuantity(o, 'length', 'length', field),
-    speed: positiveQuantity(o, 'speed', 'speed', field),
+    height: plausibleQuantity(o, 'height', 'length', field, 'bumpHeight'),
+    length: plausibleQuantity(o, 'length', 'length', field, 'bumpLength'),
+    speed: plausibleQuantity(o, 'speed', 'speed', field, 'eventSpeed'),
   };
 }
 

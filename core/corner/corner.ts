@@ -1,6 +1,7 @@
 import type { BumpStop, ReboundLimit } from '../damper/bump-stop';
 import { damperDirectionSlopes, type DamperCurve } from '../damper/damper-curve';
 import { InputError, inputFieldPath } from '../units/input-error';
+import { numberRounded } from '../units/number-text';
 
 export type { BumpStop, ReboundLimit } from '../damper/bump-stop';
 
@@ -79,8 +80,10 @@ export type CornerFigures = {
 };
 
 function requirePositive(value: number, field: string, what: string): void {
-  if (!Number.isFinite(value)) throw new InputError(field, `${what} must be a finite number (got ${value})`);
-  if (!(value > 0)) throw new InputError(field, `${what} must be greater than zero (got ${value})`);
+  if (!Number.isFinite(value))
+    throw new InputError(field, `${what} must be a finite number (got ${numberRounded(value)})`);
+  if (!(value > 0))
+    throw new InputError(field, `${what} must be greater than zero (got ${numberRounded(value)})`);
 }
 
 /**
@@ -95,7 +98,7 @@ export function cornerValidate(c: CornerInput, field = 'corner'): void {
   if (!(c.unsprungMass < c.cornerMass)) {
     throw new InputError(
       at('unsprungMass'),
-      `unsprung mass (${c.unsprungMass} kg) must be less than the corner mass (${c.cornerMass} kg), which includes it`,
+      `unsprung mass (${numberRounded(c.unsprungMass)} kg) must be less than the corner mass (${numberRounded(c.cornerMass)} kg), which includes it`,
     );
   }
   requirePositive(c.springRate, at('springRate'), 'spring rate');
@@ -103,7 +106,10 @@ export function cornerValidate(c: CornerInput, field = 'corner'): void {
   requirePositive(c.damperMotionRatio, at('damperMotionRatio'), 'damper motion ratio');
   requirePositive(c.tireRate, at('tireRate'), 'tyre rate');
   if (!Number.isFinite(c.tireDamping) || c.tireDamping < 0) {
-    throw new InputError(at('tireDamping'), `tyre damping must be zero or more (got ${c.tireDamping})`);
+    throw new InputError(
+      at('tireDamping'),
+      `tyre damping must be zero or more (got ${numberRounded(c.tireDamping)})`,
+    );
   }
   for (const dir of ['bump', 'rebound'] as const) {
     const d = c.damper[dir];
@@ -121,12 +127,18 @@ export function cornerValidate(c: CornerInput, field = 'corner'): void {
     );
   }
   if (c.damper.gasForce !== undefined && !(c.damper.gasForce >= 0)) {
-    throw new InputError(at('damper.gasForce'), `gas force must be zero or more (got ${c.damper.gasForce})`);
+    throw new InputError(
+      at('damper.gasForce'),
+      `gas force must be zero or more (got ${numberRounded(c.damper.gasForce)})`,
+    );
   }
   if (c.bumpStop) {
     const b = c.bumpStop;
     if (!Number.isFinite(b.gap) || b.gap < 0) {
-      throw new InputError(at('bumpStop.gap'), `bump-stop gap must be zero or more (got ${b.gap})`);
+      throw new InputError(
+        at('bumpStop.gap'),
+        `bump-stop gap must be zero or more (got ${numberRounded(b.gap)})`,
+      );
     }
     if ('rate' in b) requirePositive(b.rate, at('bumpStop.rate'), 'bump-stop rate');
     else if (b.curve.length === 0) throw new InputError(at('bumpStop.curve'), 'needs at least one point');

@@ -26,8 +26,22 @@ export type CsvNumbers = {
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const NON_FINITE = /^[+-]?(nan|inf|infinity)$/i;
 
-function lineEnd(text: string, from: number): number {
-  const i = text.indexOf('\n', from);
+/** A piece of a file for a message: at most `max` characters, so that no message holds a whole file. */
+export function csvTextClipped(text: string, max = 80): string {
+  const flat = text.replace(/[\r\n\t]+/g, ' ');
+  return flat.length <= max ? flat : `${flat.slice(0, max - 1)}…`;
+}
+
+/**
+ * The character that ends a line of `text`: LF (a CRLF's CR is then stripped from each line),
+ * or CR alone in a file that has no LF, as old Mac programs and some bench software write.
+ */
+function lineBreakOf(text: string): '\n' | '\r' {
+  return text.includes('\n') || !text.includes('\r') ? '\n' : '\r';
+}
+
+function lineEnd(text: string, from: number, lineBreak: '\n' | '\r'): number {
+  const i = text.indexOf(lineBreak, from);
   return i < 0 ? text.length : i;
 }
 
@@ -67,15 +81,17 @@ function cellsOf(line: string, delimiter: string, lineNo: number): string[] {
 }
 
 /**
- * Finds the header of a CSV text: the first line that is neither blank nor a `#` comment.
+ * Finds the header of a CSV text: the first line that is neither blank nor a `#` comment. Lines
+ * end with LF, CRLF or, in a file without LF, CR alone.
  * The delimiter is the header's tab, else semicolon, else comma. A byte-order mark is skipped.
  * @throws InputError when the text has no header or the header has fewer than two columns.
  */
 export function csvHeaderRead(text: string): CsvHeader {
   let pos = text.charCodeAt(0) === 0xfeff ? 1 : 0;
   let line = 0;
+  const lineBreak = lineBreakOf(text);
   while (pos < text.length) {
-    const end = lineEnd(text, pos);
+    const end = lineEnd(text, pos, lineBreak);
     const content = lineAt(text, pos, end);
     line++;
     pos = end + 1;
@@ -86,7 +102,7 @@ export function csvHeaderRead(text: string): CsvHeader {
     if (cells.length < 2)
       throw new InputError(
         `line ${line}`,
-        `the header "${trimmed}" has one column; expected at least two (e.g. "velocity,force") separated by commas, semicolons or tabs`,
+        `the header "${csvTextClipped(trimmed)}" has one column; expected at least two (e.g. "velocity,force") separated by commas, semicolons or tabs`,
       );
     cells.forEach((c, i) => {
       if (c === '') throw new InputError(`line ${line}`, `header column ${i + 1} has no name`);
@@ -125,8 +141,9 @@ export function csvNumbersRead(
   let lineNo = header.line;
   const allowEmpty = options.allowEmpty ?? new Set<number>();
   const where = (line: number, col: number) => `line ${line}, column "${header.cells[col]}"`;
+  const lineBreak = lineBreakOf(text);
   while (pos < text.length) {
-    const end = lineEnd(text, pos);
+    const end = lineEnd(text, pos, lineBreak);
     const content = lineAt(text, pos, end);
     pos = end + 1;
     lineNo++;
@@ -207,8 +224,9 @@ export function csvRowsPreview(text: string, header: CsvHeader, count: number): 
   const rows: string[][] = [];
   let pos = header.dataStart;
   let lineNo = header.line;
+  const lineBreak = lineBreakOf(text);
   while (pos < text.length && rows.length < count) {
-    const end = lineEnd(text, pos);
+    const end = lineEnd(text, pos, lineBreak);
     const content = lineAt(text, pos, end);
     pos = end + 1;
     lineNo++;

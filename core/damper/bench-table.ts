@@ -1,4 +1,4 @@
-import { csvHeaderRead, csvNumbersRead } from './bench-csv';
+import { csvHeaderRead, csvNumbersRead, csvTextClipped } from './bench-csv';
 import {
   benchPointsBinned,
   traceVelocity,
@@ -10,6 +10,7 @@ import {
   CLICK_ADJUSTERS,
   clickSettingsFromText,
   clickSettingsText,
+  type ClickAdjuster,
   type ClickSettings,
 } from './click-settings';
 import { InputError } from '../units/input-error';
@@ -62,21 +63,107 @@ export type BenchTableRun = {
   trace?: { time: Float64Array; displacement: Float64Array; force: Float64Array };
 };
 
-/** A header cell split into its name, its unit in brackets and its clicker setting in parentheses. */
+/** A header cell split into its name, its unit and its clicker setting. */
 export type BenchHeaderCell = { text: string; name: string; unit?: string; setting?: string };
 
-/** Reads `velocity [in/s] (bump 3 rebound 6)` into its parts. */
+/**
+ * Adjuster words and the short forms bench software and shops write in column names
+ * ("B3 R6", "C3 R6", "LSC 4 HSC 2"), by adjuster.
+ */
+const HEADER_CLICK_WORDS: Readonly<Record<string, ClickAdjuster>> = {
+  bump: 'bump',
+  b: 'bump',
+  c: 'bump',
+  comp: 'bump',
+  compression: 'bump',
+  lsb: 'bump',
+  lsc: 'bump',
+  rebound: 'rebound',
+  r: 'rebound',
+  reb: 'rebound',
+  lsr: 'rebound',
+  'bump-high': 'bumpHighSpeed',
+  hsb: 'bumpHighSpeed',
+  hsc: 'bumpHighSpeed',
+  'rebound-high': 'reboundHighSpeed',
+  hsr: 'reboundHighSpeed',
+};
+
+/** Clicker positions from header words ("bump 3 rebound 6", "B0 R0", "c3,r6"), or null when they are not that. */
+function headerClicksRead(tokens: readonly string[]): ClickSettings | null {
+  const flat: string[] = [];
+  for (const t of tokens) {
+    const joined = /^([a-z-]+)(\d+)$/i.exec(t);
+    if (joined) flat.push(joined[1] as string, joined[2] as string);
+    else flat.push(t);
+  }
+  if (flat.length === 0 || flat.length % 2 !== 0) return null;
+  const out: ClickSettings = {};
+  for (let i = 0; i < flat.length; i += 2) {
+    const adjuster = HEADER_CLICK_WORDS[(flat[i] as string).toLowerCase()];
+    const n = flat[i + 1] as string;
+    if (!adjuster || !/^\d+$/.test(n) || out[adjuster] !== undefined) return null;
+    out[adjuster] = Number(n);
+  }
+  return out;
+}
+
+/** Whether `text` is a unit of a bench column: a speed, force, time or length ("in/s", "lbf", "ms"). */
+function headerUnitIs(text: string): boolean {
+  if (!/^[a-zA-Zµ/^*.\d ]+$/.test(text) || !/[a-zA-Zµ]/.test(text)) return false;
+  return (['velocity', 'force', 'time', 'length'] as const).some((kind) => {
+    try {
+      quantityParse(`1 ${text}`, kind, '');
+      return true;
+    } catch {
+      return false;
+    }
+  });
+}
+
+/**
+ * Reads a header cell into its name, unit and clicker setting, in the forms bench files use:
+ * `velocity [in/s] (bump 3 rebound 6)`, `Velocity (in/s)`, `Force (lbf)`, `Velocity [in/s] B0 R0`,
+ * `Velocity (in/s) bump 3 rebound 6`, `velocity_in_s`, `Force_lbf`. Brackets always hold a unit;
+ * parentheses hold a unit or clicks, whichever they read as; words after the name are clicks
+ * ("B0 R0") or, joined by "/", a unit (`velocity_in_s` → in/s).
+ */
 export function benchHeaderCellParse(text: string): BenchHeaderCell {
-  const unit = /\[([^\]]*)\]/.exec(text);
-  const setting = /\(([^)]*)\)/.exec(text);
-  const name = text
-    .replace(/\[[^\]]*\]/, '')
-    .replace(/\([^)]*\)/, '')
-    .trim()
-    .toLowerCase();
-  const cell: BenchHeaderCell = { text, name };
-  if (unit) cell.unit = (unit[1] as string).trim();
-  if (setting) cell.setting = (setting[1] as string).trim();
+  let unit = /\[([^\]]*)\]/.exec(text)?.[1]?.trim();
+  let setting: string | undefined;
+  for (const m of text.matchAll(/\(([^)]*)\)/g)) {
+    const inner = (m[1] as string).trim();
+    const clicks = headerClicksRead(inner.split(/[\s,;]+/).filter(Boolean));
+    if (clicks) setting = clickSettingsText(clicks);
+    else if (unit === undefined && headerUnitIs(inner)) unit = inner;
+    // Neither: kept as written, so that reading the clicks says what is wrong with them.
+    else setting ??= inner;
+  }
+  const rest = text
+    .replace(/\[[^\]]*\]/g, ' ')
+    .replace(/\([^)]*\)/g, ' ')
+    .split(/[\s_]+/)
+    .filter(Boolean);
+  let nameEnd = rest.length;
+  for (let k = 1; k < rest.length; k++) {
+    const clicks = headerClicksRead(rest.slice(k));
+    if (clicks) {
+      if (setting === undefined) setting = clickSettingsText(clicks);
+      nameEnd = k;
+      break;
+    }
+  }
+  // `velocity_in_s`, `force N`: the words after the first, joined by "/", may be its unit.
+  if (unit === undefined && nameEnd > 1) {
+    const candidate = rest.slice(1, nameEnd).join('/');
+    if (headerUnitIs(candidate)) {
+      unit = candidate;
+      nameEnd = 1;
+    }
+  }
+  const cell: BenchHeaderCell = { text, name: rest.slice(0, nameEnd).join(' ').toLowerCase() };
+  if (unit !== undefined) cell.unit = unit;
+  if (setting !== undefined) cell.setting = setting;
   return cell;
 }
 
@@ -128,7 +215,7 @@ function oneColumn(cells: BenchHeaderCell[], role: BenchColumnRole, options: Ben
   if (found.length === 0)
     throw new InputError(
       `--${role}-column`,
-      `no column ${named ? `"${named}"` : `named "${role}"`} in the header (${cells.map((c) => c.text).join(', ')})`,
+      `no column ${named ? `"${named}"` : `named "${role}"`} in the header (${csvTextClipped(cells.map((c) => c.text).join(', '), 160)})`,
     );
   if (found.length > 1)
     throw new InputError(`--${role}-column`, `${found.length} columns match "${named ?? role}"; name one`);
@@ -151,7 +238,7 @@ function settingOf(c: Located): { key: string; clicks: ClickSettings } {
   if (c.cell.setting === undefined) return { key: '', clicks: {} };
   const clicks = clickSettingsFromText(
     c.cell.setting,
-    `header "${c.cell.text}" (parentheses hold clicker positions such as (bump 3 rebound 6); put units in brackets: [in/s])`,
+    `header "${c.cell.text}" (clicker positions are written as (bump 3 rebound 6) or B3 R6, a unit as [in/s] or (in/s))`,
   );
   return { key: clickSettingsText(clicks), clicks };
 }
@@ -166,13 +253,21 @@ function signCheck(points: BenchPoints, what: string): void {
   for (const v of points.velocity) max = Math.max(max, Math.abs(v));
   let same = 0;
   let opposite = 0;
+  let atRest = 0;
   for (let i = 0; i < points.velocity.length; i++) {
     const v = points.velocity[i] as number;
     const f = points.force[i] as number;
-    if (Math.abs(v) < 0.05 * max || f === 0) continue;
+    // A reading at rest has no direction to agree with: it is the gas force, or an offset.
+    if (v === 0) atRest++;
+    if (v === 0 || Math.abs(v) < 0.05 * max || f === 0) continue;
     if (Math.sign(v) === Math.sign(f)) same++;
     else opposite++;
   }
+  if (atRest === points.velocity.length)
+    throw new InputError(
+      what,
+      `${atRest === 1 ? 'its one row is' : `all ${atRest} rows are`} at zero speed: a reading at rest is the gas force, not damping; a curve needs rows at shaft speeds above zero`,
+    );
   if (opposite > same)
     throw new InputError(
       what,
@@ -194,7 +289,7 @@ function pointsRead(
   if (velocities.length === 0 || forces.length === 0)
     throw new InputError(
       'header',
-      `a point table needs a "velocity" and a "force" column (header: ${cells.map((c) => c.text).join(', ')})`,
+      `a point table needs a "velocity" and a "force" column (header: ${csvTextClipped(cells.map((c) => c.text).join(', '), 160)})`,
     );
   type Pair = { key: string; clicks: ClickSettings; v: Located; f?: Located };
   const pairs = new Map<string, Pair>();
@@ -356,7 +451,7 @@ export function benchTableRead(text: string, options: BenchTableOptions = {}): B
   if (kind === undefined)
     throw new InputError(
       'header',
-      `found neither velocity and force columns (a point table) nor time, displacement and force (a trace) in "${header.cells.join(', ')}"; name the columns, e.g. --velocity-column "Vel" --force-column "Load"`,
+      `found neither velocity and force columns (a point table) nor time, displacement and force (a trace) in "${csvTextClipped(header.cells.join(', '), 160)}"; name the columns, e.g. --velocity-column "Vel" --force-column "Load"`,
     );
   // An option for columns this kind of file does not have is a misunderstanding worth saying.
   const unused: BenchColumnRole[] = kind === 'points' ? ['time', 'displacement'] : ['velocity'];

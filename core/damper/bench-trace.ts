@@ -1,4 +1,5 @@
 import { InputError } from '../units/input-error';
+import { numbersRoundedApart } from '../units/number-text';
 
 /** Signed bench points, compression positive (m/s, N), as parallel arrays. */
 export type BenchPoints = { velocity: Float64Array; force: Float64Array };
@@ -31,9 +32,10 @@ export function traceVelocity(
   for (let i = 1; i < n; i++) {
     if (!((time[i] as number) > (time[i - 1] as number))) {
       const where = lines ? `line ${lines[i]}` : `row ${i + 1}`;
+      const [now, before] = numbersRoundedApart(time[i] as number, time[i - 1] as number);
       throw new InputError(
         `${where}, column "time"`,
-        `time ${time[i]} s is not after the previous row's ${time[i - 1]} s; a trace's time must increase row by row`,
+        `time ${now} s is not after the previous row's ${before} s; a trace's time must increase row by row`,
       );
     }
   }

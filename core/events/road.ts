@@ -1,4 +1,5 @@
 import { InputError, inputFieldPath } from '../units/input-error';
+import { numberRounded } from '../units/number-text';
 import { cubicHermiteCellAt, cubicHermiteMonotone, type CubicHermite } from '../numeric/cubic-hermite';
 import { ISO8608_BAND, ISO8608_N0, iso8608ClassGd0, type Iso8608Class } from '../corner/random-road';
 import { seededRandom } from '../numeric/seeded-random';
@@ -43,9 +44,10 @@ export function roadSlope(road: RoadProfile, s: number): number {
 }
 
 function finiteCheck(value: number, field: string, what: string, positive: boolean): void {
-  if (!Number.isFinite(value)) throw new InputError(field, `${what} must be a finite number (got ${value})`);
+  if (!Number.isFinite(value))
+    throw new InputError(field, `${what} must be a finite number (got ${numberRounded(value)})`);
   if (positive && !(value > 0))
-    throw new InputError(field, `${what} must be greater than zero (got ${value})`);
+    throw new InputError(field, `${what} must be greater than zero (got ${numberRounded(value)})`);
 }
 
 /** A level road: zero height everywhere. */
@@ -137,7 +139,7 @@ export function roadCurb(spec: CurbSpec, field = 'curb'): RoadProfile {
   if (!Number.isFinite(spec.hold) || spec.hold < 0) {
     throw new InputError(
       inputFieldPath(field, 'hold'),
-      `curb top length must be zero or more (got ${spec.hold})`,
+      `curb top length must be zero or more (got ${numberRounded(spec.hold)})`,
     );
   }
   const top = spec.rise + spec.hold;

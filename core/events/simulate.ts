@@ -1,7 +1,9 @@
 import type { CornerInput } from '../corner/corner';
 import { EVENT_DURATION, type RoadEvent } from './event';
+import { InputError } from '../units/input-error';
 import { odeIntegrate, type OdeStats } from '../numeric/integrator';
 import { eventRecorderOf, type EventMetrics, type SimulationHistory } from './metrics';
+import { figuresFiniteCheck } from '../corner/plausible-range';
 import { QuarterCarEventModel } from './quarter-car-model';
 
 export type SimulateOptions = {
@@ -68,16 +70,27 @@ export function eventSimulate(
     band * mr * absV,
     band * mr * absV,
   ];
-  const r = odeIntegrate(
-    model,
-    0,
-    y0,
-    duration,
-    { relTol, absTol: [absD, absD, absV, absV], switchDeadBand },
-    (step) => recorder.step(step),
-  );
+  let r: ReturnType<typeof odeIntegrate>;
+  try {
+    r = odeIntegrate(
+      model,
+      0,
+      y0,
+      duration,
+      { relTol, absTol: [absD, absD, absV, absV], switchDeadBand },
+      (step) => recorder.step(step),
+    );
+  } catch (e) {
+    if (e instanceof InputError) throw e;
+    // The integrator gives up only on equations no plausible corner makes: say so, never a stack trace.
+    throw new InputError(
+      event.kind,
+      `${event.label} could not be simulated on this corner (${(e as Error).message}): its masses, rates or damping are beyond what the model can follow; check them and their units`,
+    );
+  }
   const { t: _t, y, ...stats } = r;
   const out: SimulationResult = { metrics: recorder.metrics(), stats, finalState: y };
+  figuresFiniteCheck(out.metrics, event.kind);
   const history = recorder.history();
   if (history) out.history = history;
   return out;

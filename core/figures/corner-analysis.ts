@@ -15,6 +15,7 @@ import {
 } from '../corner/frequency-response';
 import type { EventMetrics } from '../events/metrics';
 import { modesOf, type Modes } from '../corner/modal';
+import { cornerInputWarnings, figuresFiniteCheck, plausibleUsualWarning } from '../corner/plausible-range';
 import { randomRoadResponse, type RandomRoadResponse } from '../corner/random-road';
 import { eventSimulate } from '../events/simulate';
 import { stepResponseLinear, type StepResponse } from '../corner/step-response';
@@ -60,17 +61,30 @@ export function cornerAnalyze(
       frequencyResponseMagnitudeAt(quarterCar, f),
     ),
     step,
-    warnings: cornerWarnings(figures, modes, step, units),
+    warnings: [...cornerInputWarnings(file.corner, units), ...cornerWarnings(figures, modes, step, units)],
   };
   if (file.road) {
     analysis.randomRoad = randomRoadResponse(quarterCar, file.road);
     analysis.warnings.push(...randomRoadWarnings(analysis.randomRoad, file.road, units));
+    const w = plausibleUsualWarning(file.road.speed, 'eventSpeed', 'road.speed', units);
+    if (w) analysis.warnings.push(w);
   }
   if (file.bump) {
     const event = eventBump(file.bump);
     const metrics = eventSimulate(file.corner, event).metrics;
     analysis.bump = { event, metrics };
+    for (const [value, key, field] of [
+      [file.bump.height, 'bumpHeight', 'bump.height'],
+      [file.bump.length, 'bumpLength', 'bump.length'],
+      [file.bump.speed, 'eventSpeed', 'bump.speed'],
+    ] as const) {
+      const w = plausibleUsualWarning(value, key, field, units);
+      if (w) analysis.warnings.push(w);
+    }
     analysis.warnings.push(...eventWarnings(file.corner, event, metrics, units));
   }
+  // The final guard: a figure that is not a finite number is an error, never a figure.
+  const { file: _file, bump, warnings: _warnings, ...figuresOnly } = analysis;
+  figuresFiniteCheck({ ...figuresOnly, bump: bump?.metrics }, 'corner');
   return analysis;
 }

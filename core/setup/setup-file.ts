@@ -4,13 +4,8 @@ import { cornerInputParse, cornerInputToFile, objectParse } from '../corner/corn
 import { InputError, inputFieldPath } from '../units/input-error';
 import { CORNER_POSITIONS, type SetupCorner, type SetupSheet, type Toe } from './setup-sheet';
 import { nameFieldParse, NOTES_MAX_LENGTH, textFieldParse } from '../units/text-field';
-import {
-  quantityFormat,
-  quantityParse,
-  quantityText,
-  type QuantityKind,
-  type UnitSystem,
-} from '../units/units';
+import { PLAUSIBLE_RANGES, plausibleCheck } from '../corner/plausible-range';
+import { quantityParse, quantityText, type UnitSystem } from '../units/units';
 
 /** The `format` tag of our setup file. */
 export const SETUP_FILE_FORMAT = 'rideledger-setup';
@@ -51,39 +46,15 @@ const CORNER_SHEET_KEYS = [
   'notes',
 ] as const;
 
+type SheetQuantity = 'rideHeight' | 'tirePressureCold' | 'camber' | 'fuelLoad';
+
 /**
- * Plausible ranges of the sheet quantities. They are wide; their job is to catch a value
- * typed without its unit (a bare number is SI: "95" ride height is 95 m, "1.6" pressure is
- * 1.6 Pa, "-2.5" camber is −2.5 rad).
+ * A sheet quantity inside its plausible range (PLAUSIBLE_RANGES): wide, so that its job is to
+ * catch a value typed without its unit (a bare number is SI: "95" ride height is 95 m, "1.6"
+ * pressure is 1.6 Pa, "-2.5" camber is −2.5 rad).
  */
-const PLAUSIBLE: Record<string, { kind: QuantityKind; low: number; high: number; hint: string }> = {
-  rideHeight: { kind: 'length', low: 0, high: 1, hint: '"95 mm"' },
-  tirePressureCold: { kind: 'pressure', low: 20e3, high: 1e6, hint: '"1.6 bar" or "24 psi"' },
-  camber: { kind: 'angle', low: (-15 * Math.PI) / 180, high: (15 * Math.PI) / 180, hint: '"-2.5 deg"' },
-  fuelLoad: { kind: 'mass', low: 0, high: 500, hint: '"25 kg"' },
-  toeAngle: { kind: 'angle', low: (-5 * Math.PI) / 180, high: (5 * Math.PI) / 180, hint: '"0.1 deg"' },
-  toeLength: { kind: 'length', low: -0.025, high: 0.025, hint: '"1.5 mm"' },
-};
-
-function plausibleCheck(v: number, key: keyof typeof PLAUSIBLE, field: string): number {
-  const p = PLAUSIBLE[key] as (typeof PLAUSIBLE)[string];
-  if (v < p.low || v > p.high) {
-    const shown = quantityFormat(v, p.kind, 'si');
-    const range = `${quantityFormat(p.low, p.kind, 'si')} to ${quantityFormat(p.high, p.kind, 'si')}`;
-    throw new InputError(
-      field,
-      `${shown} is outside the plausible ${range}; a number without a unit is read in SI — write e.g. ${p.hint}`,
-    );
-  }
-  return v;
-}
-
-function plausibleQuantity(raw: unknown, key: keyof typeof PLAUSIBLE, field: string): number {
-  return plausibleCheck(
-    quantityParse(raw, (PLAUSIBLE[key] as (typeof PLAUSIBLE)[string]).kind, field),
-    key,
-    field,
-  );
+function plausibleQuantity(raw: unknown, key: SheetQuantity, field: string): number {
+  return plausibleCheck(quantityParse(raw, PLAUSIBLE_RANGES[key].kind, field), key, field);
 }
 
 const TOE_EXPECTED = 'expected a toe with its unit: an angle ("0.1 deg") or a length at the rim ("1 mm")';

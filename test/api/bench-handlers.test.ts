@@ -108,7 +108,7 @@ describe('bench handlers', () => {
     const file = setupFileFixture();
     file.vehicle = 'V';
     file.corners.FL.damperUnit = 'D-1';
-    await apiCall('setupSave', { file }, ctx);
+    await apiCall('setupSave', { file, newDamperUnits: ['T-1', 'T-2'] }, ctx);
     const { bundle } = await apiCall('storeExport', { vehicle: 'V' }, ctx);
     expect(bundle.dampers.find((d) => d.label === 'D-1')?.runs[1]?.fit).toMatchObject({
       bump: { confidence: 0.95 },

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { apiCall } from '../../app/api/call';
 import { CAUTION_TEXT } from '../../core/safety/caution';
+import { damperUnitEnsure } from '../../db/damper-units';
 import { setupFileFixture } from '../core/setup-fixture';
 import { storeDigest } from '../db/store-fixture';
 import { freshContext } from './api-fixture';
@@ -8,6 +9,9 @@ import { freshContext } from './api-fixture';
 async function withCoupe() {
   const ctx = freshContext();
   await apiCall('vehicleAdd', { name: 'Test coupe', kind: 'club sprint coupe' }, ctx);
+  // The fixture's damper units are in the library, as a shop's would be after its bench runs.
+  for (const label of ['T-1', 'T-2'])
+    damperUnitEnsure(ctx.store.db, label, undefined, '2025-01-01T00:00:00Z');
   return ctx;
 }
 

@@ -27,7 +27,16 @@ describe('rideledger, as a shop uses it', () => {
     };
     expect(await ok('vehicle', 'add', COUPE, '--kind', 'club sprint coupe')).toMatch(/Added vehicle/);
     const baseline = join(DEMO, 'setups', 'coupe-27', '01-baseline.json');
-    expect(await ok('setup', 'save', baseline)).toMatch(/Saved Millbrook coupe #27 revision 1 "Baseline"/);
+    // Its damper units are new to the library, and a save says so explicitly.
+    const refused = await cli('setup', 'save', baseline, '--db', db);
+    expect(refused.code).toBe(2);
+    expect(refused.stderr).toMatch(
+      /corners\.FL\.damperUnit: damper unit "MB-DA-1" is not in the library \(the library is empty\).*--new-damper "MB-DA-1"/,
+    );
+    const newDampers = ['MB-DA-1', 'MB-DA-2', 'MB-DA-3', 'MB-DA-4'].flatMap((d) => ['--new-damper', d]);
+    expect(await ok('setup', 'save', baseline, ...newDampers)).toMatch(
+      /Saved Millbrook coupe #27 revision 1 "Baseline"[^\n]*\n {2}new damper units in the library: MB-DA-1, MB-DA-2, MB-DA-3, MB-DA-4/,
+    );
     // Show it as a file, edit one spring, save it back: a child of revision 1.
     const edited = join(dir, 'edit.json');
     expect(await ok('setup', 'show', `${COUPE}@1`, '--out', edited)).toMatch(/Wrote/);

@@ -27,7 +27,7 @@ describe('setupSave', () => {
     const store = freshStore();
     const sheet = setupFileParse(setupFileFixture()).sheet;
     (sheet.corners.RR.analysis as { springRate: number }).springRate = (450 * 4.4482216152605) / 0.0254; // 450 lbf/in, not a short decimal
-    const saved = setupSave(store, vehicleAdded(store), sheet);
+    const saved = setupSave(store, vehicleAdded(store), sheet, { newDamperUnits: ['T-1', 'T-2'] });
     expect(setupSheetRead(store.db, saved.revision)).toEqual(sheet);
   });
 
@@ -85,5 +85,40 @@ describe('setupSave', () => {
     expect(saved.dampersCreated).toEqual(['T-1', 'T-2', 'Ünit Ω']);
     expect(damperUnitList(store.db).map((d) => d.label)).toEqual(['T-1', 'T-2', 'Ünit Ω']);
     expect(setupSaved(store, v).dampersCreated).toEqual([]);
+  });
+
+  it('refuses a damper label the library lacks, listing the known ones, and stores nothing', () => {
+    const store = freshStore();
+    const v = vehicleAdded(store);
+    setupSaved(store, v);
+    const before = storeDigest(store);
+    const raw = setupFileFixture();
+    raw.corners.RL.damperUnit = 'T-22';
+    const sheet = setupFileParse(raw).sheet;
+    expect(() => setupSave(store, v, sheet)).toThrow(
+      /^corners\.RL\.damperUnit: damper unit "T-22" is not in the library \(the library has "T-1", "T-2"\); check the spelling, or name it as a new damper unit/,
+    );
+    expect(storeDigest(store)).toBe(before);
+    expect(damperUnitList(store.db).map((d) => d.label)).toEqual(['T-1', 'T-2']);
+  });
+
+  it('refuses a damper label on an empty library unless it is declared new', () => {
+    const store = freshStore();
+    const v = vehicleAdded(store);
+    const sheet = setupFileParse(setupFileFixture()).sheet;
+    expect(() => setupSave(store, v, sheet)).toThrow(/"T-1" is not in the library \(the library is empty\)/);
+    expect(damperUnitList(store.db)).toEqual([]);
+    const saved = setupSave(store, v, sheet, { newDamperUnits: ['t-1', 'T-2'] });
+    expect(saved.dampersCreated).toEqual(['T-1', 'T-2']);
+  });
+
+  it('refuses a label declared new that no corner names, so a typo in the option is caught too', () => {
+    const store = freshStore();
+    const v = vehicleAdded(store);
+    const sheet = setupFileParse(setupFileFixture()).sheet;
+    expect(() => setupSave(store, v, sheet, { newDamperUnits: ['T-1', 'T-2', 'T-3'] })).toThrow(
+      /^newDamperUnits: "T-3" is named as a new damper unit but no corner of the sheet uses it/,
+    );
+    expect(damperUnitList(store.db)).toEqual([]);
   });
 });

@@ -52,7 +52,7 @@ export function vehicleAdded(store: Store, name = 'Test coupe'): VehicleRow {
   return vehicleResolve(store.db, name);
 }
 
-/** Saves the fixture setup, changed by `change`, as the next revision. */
+/** Saves the fixture setup, changed by `change`, as the next revision; its damper labels are declared new. */
 export function setupSaved(
   store: Store,
   vehicle: VehicleRow,
@@ -60,5 +60,9 @@ export function setupSaved(
 ) {
   const raw = setupFileFixture();
   change(raw);
-  return setupSave(store, vehicle, setupFileParse(raw).sheet);
+  const sheet = setupFileParse(raw).sheet;
+  const labels = Object.values(sheet.corners)
+    .map((c) => c.damperUnit)
+    .filter((l) => l !== '');
+  return setupSave(store, vehicle, sheet, { newDamperUnits: labels });
 }

@@ -26,7 +26,8 @@ const INCHES = demo('mb-da-1-bump-12.csv');
 const TRACE = demo('mb-sa-1-trace-rebound-4.csv');
 
 const mappingOf = (p: typeof POINTS, patch: Partial<BenchMapping> = {}): BenchMapping => ({
-  ...benchMappingDefault(p, 'MB-TEST-1'),
+  ...benchMappingDefault(p),
+  damper: 'MB-TEST-1',
   ...patch,
 });
 
@@ -228,5 +229,74 @@ describe('the import call', () => {
       apiCall('benchImport', benchImportInput(broken, mappingOf(broken), 'si'), ctx),
     ).rejects.toThrow(/line 3, column "force"/);
     expect(storeDigest(ctx.store)).toBe(before);
+  });
+});
+
+// NIST SP 811 (2008) Appendix B [pub]: 1 in = 0.0254 m and 1 lbf = 4.4482216152605 N, exactly.
+const INCH = 0.0254;
+const LBF = 4.4482216152605;
+
+/** A bench file as a shop's software writes it: one header style, the same three points in in/s and lbf. */
+function styled(velocity: string, force: string): string {
+  return `${velocity},${force}\n1,50\n2,90\n4,150\n-1,-70\n-2,-120\n-4,-200\n`;
+}
+
+describe('bench files with common headers, in the mapping step', () => {
+  const styles: [string, string, string, string][] = [
+    ['units in parentheses', 'Velocity (in/s)', 'Force (lbf)', ''],
+    [
+      'units in brackets and clicks after them',
+      'Velocity [in/s] B0 R0',
+      'Force [lbf] B0 R0',
+      'bump 0 rebound 0',
+    ],
+    ['units joined by underscores', 'velocity_in_s', 'Force_lbf', ''],
+    [
+      'units in parentheses and clicks in words',
+      'Velocity (in/s) bump 3 rebound 6',
+      'Force (lbf) bump 3 rebound 6',
+      'bump 3 rebound 6',
+    ],
+    [
+      'clicks in parentheses after a bracketed unit',
+      'Velocity [in/s] (B3 R6)',
+      'Force [lbf] (B3 R6)',
+      'bump 3 rebound 6',
+    ],
+  ];
+  for (const [what, v, f, clicks] of styles) {
+    it(`reads ${what} (${v}, ${f}) with the header's units, and the import is allowed`, () => {
+      const p = benchFilePreview('styled.csv', styled(v, f));
+      expect(p.kindGuess).toBe('points');
+      const mapping = mappingOf(p);
+      expect(benchHeaderUnit(p, mapping, 'velocity')).toBe('in/s');
+      expect(benchHeaderUnit(p, mapping, 'force')).toBe('lbf');
+      const check = benchMappingCheck(p, mapping, 'si');
+      expect(check).toEqual({
+        ok: true,
+        runs: [
+          { label: clicks || 'no clicks recorded', points: 6, fitted: 'bump and rebound', offset: null },
+        ],
+      });
+      // Mapped by hand, column by column, it reads the same: the Import button is not held back.
+      const byHand = mappingOf(p, { columns: { velocity: v, force: f, time: '', displacement: '' } });
+      expect(benchMappingCheck(p, byHand, 'si').ok).toBe(true);
+    });
+
+    it(`stores ${what} in SI`, async () => {
+      const ctx = freshContext();
+      const p = benchFilePreview('styled.csv', styled(v, f));
+      const out = await apiCall('benchImport', benchImportInput(p, mappingOf(p), 'si'), ctx);
+      expect(out.runs).toHaveLength(1);
+      const shown = await apiCall('benchShow', { run: out.runs[0]?.id as number, points: true }, ctx);
+      const fastest = (shown.points ?? []).reduce((a, b) => (b[0] > a[0] ? b : a), [0, 0]);
+      // 4 in/s = 0.1016 m/s and 150 lbf = 667.23 N [calc: NIST factors above].
+      expect(fastest[0]).toBeCloseTo(4 * INCH, 12);
+      expect(fastest[1]).toBeCloseTo(150 * LBF, 9);
+    });
+  }
+
+  it('starts with the damper field empty, whatever unit was viewed last', () => {
+    expect(benchMappingDefault(POINTS).damper).toBe('');
   });
 });

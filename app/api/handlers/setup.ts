@@ -4,6 +4,7 @@ import { CAUTION_TEXT } from '../../../core/safety/caution';
 import { cornerQuarterCar, cornerRideFigures } from '../../../core/corner/corner';
 import { InputError } from '../../../core/units/input-error';
 import { modesOf } from '../../../core/corner/modal';
+import { cornerInputWarnings } from '../../../core/corner/plausible-range';
 import { SETUP_FIGURE_LABELS, setupDiff } from '../../../core/setup/setup-diff';
 import { setupFileParse, setupFileWrite } from '../../../core/setup/setup-file';
 import { clickSettingsParse } from '../../../core/damper/click-settings';
@@ -43,11 +44,9 @@ function sheetWarnings(
     const own = resolved.dampers[p].warning;
     return [
       ...(own ? [own] : []),
+      ...cornerInputWarnings(c, units),
       ...cornerWarnings(cornerRideFigures(c), modesOf(cornerQuarterCar(c)), undefined, units),
-    ].map((w) => ({
-      position: p,
-      ...w,
-    }));
+    ].map((w) => ({ position: p, ...w }));
   });
 }
 
@@ -93,6 +92,7 @@ export function setupSaveHandler(
   const parentNumber = input.basedOnRevision ?? file.basedOnRevision;
   const saved = setupSave(store, v, file.sheet, {
     units: input.units,
+    newDamperUnits: input.newDamperUnits ?? [],
     ...(parentNumber === undefined ? {} : { parentNumber }),
   });
   return {

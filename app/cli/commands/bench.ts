@@ -18,7 +18,8 @@ rideledger [--db FILE] bench show RUN [--points] [--units si|us] [--json]
   ("time", "displacement", "force"), fits the bilinear curve of each run and stores the
   runs for the damper unit (added to the library when the label is new). One transaction:
   a file with a bad row stores nothing. Units are SI unless given in the header
-  ("velocity [in/s]") or by an option.
+  ("velocity [in/s]", "Velocity (in/s)", "velocity_in_s", "Force_lbf") or by an option;
+  clicks may follow the name ("Velocity [in/s] B0 R0", "Force (lbf) bump 3 rebound 6").
 
   --clicks "bump 3 rebound 6"     clicker positions of the run(s)
   --date YYYY-MM-DD --stroke "50 mm" --frequency "2 Hz" --temperature "35 degC" --notes TEXT

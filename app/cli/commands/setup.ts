@@ -2,6 +2,7 @@ import { setupChangeText } from '../../../core/setup/setup-diff';
 import { CAUTION_TEXT } from '../../../core/safety/caution';
 import { clickSettingsText } from '../../../core/damper/click-settings';
 import { damperDirectionSlopes } from '../../../core/damper/damper-curve';
+import { InputError } from '../../../core/units/input-error';
 import { setupFileParse } from '../../../core/setup/setup-file';
 import { CORNER_POSITIONS, type SetupCorner } from '../../../core/setup/setup-sheet';
 import { numberFormat, quantityFormat, type UnitSystem } from '../../../core/units/units';
@@ -16,7 +17,7 @@ import { withStore } from '../store-session';
 import { tableFormat, textWrap } from '../table';
 import { unitSystemParse } from './analyze';
 
-export const SETUP_USAGE = `rideledger [--db FILE] setup save FILE [--vehicle NAME] [--based-on N] [--units si|us] [--json]
+export const SETUP_USAGE = `rideledger [--db FILE] setup save FILE [--vehicle NAME] [--based-on N] [--new-damper LABEL]… [--units si|us] [--json]
 rideledger [--db FILE] setup show VEHICLE[@N] [--units si|us] [--file] [--out FILE [--force]] [--json]
 rideledger [--db FILE] setup history VEHICLE [--json]
 rideledger [--db FILE] setup diff VEHICLE@A [VEHICLE@B] [--vehicle NAME] [--units si|us] [--json]
@@ -24,7 +25,9 @@ rideledger [--db FILE] setup diff VEHICLE@A [VEHICLE@B] [--vehicle NAME] [--unit
   save     stores a setup file (format "rideledger-setup") as a new revision; nothing is
            ever overwritten. The parent is the newest revision, or the file's
            "basedOnRevision", or --based-on N. The line saying what changed is written in
-           --units (the sheet itself is stored SI); a copy of the parent is refused.
+           --units (the sheet itself is stored SI); a copy of the parent is refused. A
+           damper unit the library lacks is refused (a typo must not become a new unit)
+           unless --new-damper LABEL names it (repeat it for each new unit).
   show     a revision (the newest without @N) with each corner's ride figures, each damper
            at its clicks: the bench's curve there (a run, or between measured clicks), else
            the curve entered, and where each comes from; --file prints it as a setup file,
@@ -212,6 +215,7 @@ export async function setupCommand(args: string[], io: CliIo): Promise<number> {
     file: { type: 'boolean' },
     out: { type: 'string' },
     force: { type: 'boolean' },
+    'new-damper': { type: 'string', multiple: true },
   });
   if (helpShown(values, sub, SETUP_USAGE, io)) return EXIT_OK;
   const units = unitSystemParse(values.units);
@@ -230,7 +234,20 @@ export async function setupCommand(args: string[], io: CliIo): Promise<number> {
       if (values.vehicle !== undefined) input.vehicle = values.vehicle;
       if (basedOn !== undefined) input.basedOnRevision = Number(basedOn);
       input.units = units;
-      const out = await withStore(values.db, io, 'write', (ctx) => apiCall('setupSave', input, ctx));
+      const newDampers = values['new-damper'];
+      if (newDampers !== undefined) input.newDamperUnits = newDampers;
+      const out = await withStore(values.db, io, 'write', (ctx) =>
+        apiCall('setupSave', input, ctx).catch((e: unknown) => {
+          // The option's own name, not the API's, in a message the command prints.
+          if (e instanceof InputError && e.field === 'newDamperUnits')
+            throw new InputError('--new-damper', e.problem);
+          const unknown =
+            e instanceof InputError ? /^damper unit (".*") is not in the library/.exec(e.problem) : null;
+          if (e instanceof InputError && unknown)
+            throw new InputError(e.field, `${e.problem} (--new-damper ${unknown[1]})`);
+          throw e;
+        }),
+      );
       if (values.json) io.stdout(json(out));
       else {
         const lines = [

@@ -41,6 +41,29 @@ describe('csvHeaderRead', () => {
 });
 
 describe('csvNumbersRead', () => {
+  it('reads a file whose lines end with CR alone, as old Mac programs write them', () => {
+    const text = '# bench export\rvelocity,force\r0.1,300\r\r-0.2,-700.5\r';
+    const header = csvHeaderRead(text);
+    expect(header.cells).toEqual(['velocity', 'force']);
+    expect(header.line).toBe(2);
+    const r = csvNumbersRead(text, header, [0, 1]);
+    expect(Array.from(r.columns.get(0) ?? [])).toEqual([0.1, -0.2]);
+    expect(Array.from(r.columns.get(1) ?? [])).toEqual([300, -700.5]);
+    expect(Array.from(r.lines)).toEqual([3, 5]);
+    expect(csvRowsPreview(text, header, 5)).toEqual([
+      ['0.1', '300'],
+      ['-0.2', '-700.5'],
+    ]);
+  });
+
+  it('never puts a whole file into a message', () => {
+    // One long line: a file whose line ends this reader does not know would read as one header.
+    const text = `velocity${'\u20280.1 300'.repeat(5000)}`;
+    const message = problem(() => csvHeaderRead(text));
+    expect(message).toMatch(/has one column/);
+    expect(message.length).toBeLessThan(300);
+  });
+
   it('reads rows with CRLF or LF endings, skipping blank and comment lines, and keeps their line numbers', () => {
     const r = read('velocity,force\r\n0.1,300\r\n\r\n# pause\r\n-0.2,-700.5\r\n');
     expect(Array.from(r.columns.get(0) ?? [])).toEqual([0.1, -0.2]);

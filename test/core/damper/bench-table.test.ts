@@ -20,7 +20,80 @@ describe('benchHeaderCellParse', () => {
   });
 });
 
+describe('benchHeaderCellParse, in the forms bench software writes', () => {
+  const forms: [string, Record<string, string>][] = [
+    ['Velocity (in/s)', { name: 'velocity', unit: 'in/s' }],
+    ['Force (lbf)', { name: 'force', unit: 'lbf' }],
+    ['Velocity [in/s] B0 R0', { name: 'velocity', unit: 'in/s', setting: 'bump 0 rebound 0' }],
+    ['velocity_in_s', { name: 'velocity', unit: 'in/s' }],
+    ['Force_lbf', { name: 'force', unit: 'lbf' }],
+    ['velocity_m_s', { name: 'velocity', unit: 'm/s' }],
+    ['force_N', { name: 'force', unit: 'N' }],
+    ['time_ms', { name: 'time', unit: 'ms' }],
+    ['Velocity (in/s) bump 3 rebound 6', { name: 'velocity', unit: 'in/s', setting: 'bump 3 rebound 6' }],
+    ['Force [lbf] (C3 R6)', { name: 'force', unit: 'lbf', setting: 'bump 3 rebound 6' }],
+    ['velocity (LSC 4 HSC 2)', { name: 'velocity', setting: 'bump 4 bump-high 2' }],
+    ['Shaft velocity', { name: 'shaft velocity' }],
+  ];
+  for (const [text, parts] of forms)
+    it(`reads "${text}"`, () => {
+      expect(benchHeaderCellParse(text)).toEqual({ text, ...parts });
+    });
+
+  it('leaves parentheses that are neither clicks nor a unit to the clicks reader, which names them', () => {
+    expect(benchHeaderCellParse('velocity (bmp 3)').setting).toBe('bmp 3');
+    expect(problem(() => benchTableRead('velocity (bmp 3),force (bmp 3)\n0.1,1\n'))).toMatch(
+      /"bmp" is not a clicker adjuster/,
+    );
+  });
+
+  it('reads each header style of one sweep to the same SI points', () => {
+    const files = [
+      'Velocity (in/s),Force (lbf)',
+      'velocity_in_s,Force_lbf',
+      'Velocity [in/s] B0 R0,Force [lbf] B0 R0',
+      'Velocity (in/s) bump 3 rebound 6,Force (lbf) bump 3 rebound 6',
+    ].map((h) => benchTableRead(`${h}\n1,50\n4,150\n-2,-120\n`));
+    for (const [run] of files) {
+      // 4 in/s = 0.1016 m/s, 150 lbf = 667.23 N [pub: NIST SP 811 factors above].
+      expect(Array.from(run?.points.velocity ?? [])).toEqual([1 * INCH, 4 * INCH, -2 * INCH]);
+      expect(run?.points.force[1]).toBeCloseTo(150 * LBF, 9);
+    }
+    expect(files.map(([run]) => run?.clicks)).toEqual([
+      {},
+      {},
+      { bump: 0, rebound: 0 },
+      { bump: 3, rebound: 6 },
+    ]);
+  });
+});
+
 describe('benchTableRead', () => {
+  it('names a file of readings at zero speed as such, not as a sign mistake', () => {
+    expect(problem(() => benchTableRead('velocity,force\n0,120\n'))).toMatch(
+      /^file: its one row is at zero speed: a reading at rest is the gas force, not damping/,
+    );
+    expect(problem(() => benchTableRead('velocity,force\n0,120\n0,-80\n0,0\n'))).toMatch(
+      /^file: all 3 rows are at zero speed/,
+    );
+  });
+
+  it('writes the times of a trace that goes back as people write them', () => {
+    const rows = [
+      'time [ms],displacement,force',
+      '0,0,0',
+      '3,1,1',
+      '6,2,2',
+      '9,3,3',
+      '9,4,4',
+      '12,5,5',
+      '15,6,6',
+    ];
+    expect(problem(() => benchTableRead(rows.join('\n')))).toMatch(
+      /line 6, column "time": time 0\.009 s is not after the previous row's 0\.009 s;/,
+    );
+  });
+
   it('reads a one-run point table in SI', () => {
     const [run, ...rest] = benchTableRead('velocity,force\n-0.1,-500\n0.1,300\n');
     expect(rest).toEqual([]);
@@ -89,7 +162,12 @@ describe('benchTableRead', () => {
     ['a velocity without force', 'velocity,force,velocity (bump 3)\n1,2,3\n', {}, /has no force column/],
     ['a duplicate column', 'velocity,force,force\n1,2,3\n', {}, /"force" appears twice/],
     ['a duplicate column in other case', 'velocity,Force,force\n1,2,3\n', {}, /appears twice/],
-    ['a unit in parentheses', 'velocity (m/s),force (N)\n1,2\n', {}, /parentheses hold clicker positions/],
+    [
+      'clicks that are neither clicks nor a unit',
+      'velocity (fast),force (fast)\n1,2\n',
+      {},
+      /clicker positions are written as \(bump 3 rebound 6\) or B3 R6/,
+    ],
     ['a wrong unit in the header', 'velocity [kg],force\n1,2\n', {}, /"kg" is not a unit of velocity/],
     [
       'a wrong unit option',
