@@ -14,7 +14,12 @@ import {
 } from '../../../core/valving-map';
 import { VALVING_PRESET_NAMES, VALVING_PRESETS } from '../../../core/valving-presets';
 import { valvingBalanceOf, valvingRank } from '../../../core/valving-rank';
-import { VALVING_OBJECTIVE, VALVING_TARGET_KEYS, VALVING_TARGET_SPECS } from '../../../core/valving-targets';
+import {
+  VALVING_OBJECTIVE,
+  VALVING_TARGET_KEYS,
+  VALVING_TARGET_SPECS,
+  type ValvingSource,
+} from '../../../core/valving-targets';
 import { damperUnitResolve } from '../../../db/damper-units';
 import { benchRunListOfDamper } from '../../../db/queries/bench-run';
 import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';
@@ -24,6 +29,7 @@ import { vehicleResolve } from '../../../db/vehicle-ref';
 import type { ApiContext } from '../context';
 import type { HandlerOutput, HandlerParsedInput } from '../contract';
 import { valvingSweepParallel } from '../valving-pool';
+import { vehicleJudgedScenario } from './vehicle';
 
 /** A damper unit's bench runs as the map reads them: clicks and fitted curves. */
 function valvingRunsOf(
@@ -77,12 +83,12 @@ function damperLabelOf(
   return recorded;
 }
 
-function judgedOn(settings: ValvingSettings) {
+function judgedOn(settings: ValvingSettings, scenarioSource: ValvingSource) {
   const p = settings.preset;
   return {
     preset: { name: p.name, title: p.title, use: p.use },
     scenario: settings.scenario,
-    scenarioSource: p.scenarioSource,
+    scenarioSource,
     targets: settings.targets,
     objective: VALVING_OBJECTIVE,
     caution: CAUTION_TEXT,
@@ -143,8 +149,11 @@ export async function valvingChooseHandler(
   ctx: ApiContext,
 ): Promise<HandlerOutput<'valvingChoose'>> {
   const db = ctx.store.db;
-  const settings = valvingSettingsOf(input.preset, input);
+  const preset = valvingSettingsOf(input.preset, input);
   const { v, r, sheet } = revisionOf(db, input);
+  // The vehicle's own scenario, not the preset's: one scenario per vehicle on every screen.
+  const judged = vehicleJudgedScenario(ctx.store, v, input.scenario);
+  const settings = { ...preset, scenario: judged.scenario };
   const positions = CORNER_POSITIONS.filter((p) => input.corners.includes(p));
   // One sweep per damper unit, over the corners that use it.
   const groups = new Map<string, { label: string; curves: ValvingCurves; positions: CornerPosition[] }>();
@@ -198,7 +207,7 @@ export async function valvingChooseHandler(
   return {
     vehicle: { id: v.id, name: v.name },
     revision: r.number,
-    ...judgedOn(settings),
+    ...judgedOn(settings, judged.source),
     dampers: [...groups.values()].map((g) => ({
       label: g.label,
       positions: g.positions,
@@ -224,14 +233,17 @@ export function setupCompareHandler(
   input: HandlerParsedInput<'setupCompare'>,
   { store }: ApiContext,
 ): HandlerOutput<'setupCompare'> {
-  const settings = valvingSettingsOf(input.preset, input);
+  const preset = valvingSettingsOf(input.preset, input);
   const a = revisionOf(store.db, input.a, 'a');
   const b = revisionOf(store.db, input.b, 'b');
+  // Judged on the first revision's vehicle's scenario.
+  const judged = vehicleJudgedScenario(store, a.v, input.scenario);
+  const settings = { ...preset, scenario: judged.scenario };
   const compared = valvingCompare(a.sheet, b.sheet, settings.scenario, settings.targets, input.units);
   return {
     a: { vehicle: a.v.name, revision: a.r.number, name: a.r.name },
     b: { vehicle: b.v.name, revision: b.r.number, name: b.r.name },
-    ...judgedOn(settings),
+    ...judgedOn(settings, judged.source),
     ...compared,
   };
 }
