@@ -16,9 +16,11 @@ import { VALVING_HEADLINES } from '../../../core/valving-rank';
 import type { ValvingTargetKey } from '../../../core/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall, apiJob, ApiCallError, type JobProgress } from '../api-client';
+import { scenarioText } from '../scenario-model';
 import { useApp, type RevisionPick } from '../app-context';
 import { CornerChoice, PresetChoice } from '../components/choices';
 import { CautionLine, WarningList } from '../components/caution';
+import { ScenarioPanel, useVehicleScenario } from '../components/scenario-panel';
 import { RevisionPicker } from '../components/revision-pick';
 import { ErrorLine, ProgressLine } from '../components/status';
 
@@ -342,6 +344,7 @@ export function ValvingScreen() {
   const [progress, setProgress] = useState<JobProgress | null>(null);
   const [error, setError] = useState<unknown>(null);
   const stop = useRef<AbortController | null>(null);
+  const scenario = useVehicleScenario(pick?.vehicle ?? null);
 
   useEffect(() => {
     apiCall('valvingPresets', {}).then(setPresets, setError);
@@ -540,6 +543,7 @@ export function ValvingScreen() {
       ) : pick ? (
         <p>Loading the map…</p>
       ) : null}
+      <ScenarioPanel idPrefix={`${id}-scenario`} parts={['road', 'bump', 'curb']} state={scenario} />
       <h3>Targets</h3>
       <div className="toolbar">
         <PresetChoice label="Preset" value={preset} presets={presets?.presets ?? []} onChange={setPreset} />
@@ -667,7 +671,8 @@ export function ValvingScreen() {
             <strong>Caution:</strong> {CAUTION_TEXT} {choice.valvingCaution}
           </div>
           <p className="muted">
-            {choice.combinations} combinations evaluated. {choice.objective}
+            {choice.combinations} combinations evaluated on {scenarioText(choice.scenario, app.units)}.{' '}
+            {choice.objective}
             {choice.units !== app.units
               ? ` The model warnings below are written in ${choice.units === 'si' ? 'SI' : 'US'} units, as when the clicks were ranked: rank again to rewrite them.`
               : ''}
