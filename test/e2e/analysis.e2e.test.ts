@@ -112,9 +112,7 @@ describe.skipIf(!chromium)('Ride figures, in Chromium against the served app', (
       .poll(() => page.locator('#analysis-bumpHeight-error').innerText())
       .toMatch(/could not read "abc"/);
     expect(await height.getAttribute('aria-invalid')).toBe('true');
-    await expect
-      .poll(() => page.getByText('The figures are for the last values that read').count())
-      .toBe(1);
+    await expect.poll(() => page.getByText('The figures are for the last values that read').count()).toBe(1);
     expect(await cell(page, 'wheelRate', 'FL').innerText()).toBe('64.8 N/mm');
     await height.fill('40');
     await expect
