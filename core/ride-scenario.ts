@@ -72,3 +72,15 @@ export function rideScenarioFromStored(json: string | null): RideScenario | null
   }
   return out;
 }
+
+/**
+ * A scenario as `rideScenarioParse` reads it (the road's class under `class`), numbers SI: the
+ * form in which a stored or carried scenario is checked again.
+ */
+export function rideScenarioEdits(s: {
+  road: { roadClass: string; speed: number };
+  bump: Record<string, number>;
+  curb: Record<string, number>;
+}): { road: { class: string; speed: number }; bump: Record<string, number>; curb: Record<string, number> } {
+  return { road: { class: s.road.roadClass, speed: s.road.speed }, bump: { ...s.bump }, curb: { ...s.curb } };
+}

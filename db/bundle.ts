@@ -1,3 +1,6 @@
+import { rideScenarioEdits, rideScenarioParse, type RideScenario } from '../core/ride-scenario';
+import { vehicleScenarioPut } from './queries/vehicle-scenario';
+import { vehicleScenarioRead } from './vehicle-scenario';
 import { canonicalJson } from '../core/canonical-json';
 import type { ClickSettings } from '../core/click-settings';
 import { InputError } from '../core/input-error';
@@ -88,6 +91,8 @@ export type Bundle = {
   format: typeof BUNDLE_FORMAT;
   version: typeof BUNDLE_VERSION;
   vehicle: { name: string; kind: string; notes: string; createdAt: string };
+  /** The vehicle's scenario (SI), when one is stored (bundles before schema 4 have none). */
+  scenario?: RideScenario;
   revisions: BundleRevision[];
   dampers: BundleDamper[];
 };
@@ -159,10 +164,12 @@ export function bundleExport(store: Store, vehicleRef: string | number): Bundle 
       createdAt: d.created_at,
       runs: benchRunRowsOfDamper(db, d.id).map(benchRunToBundle),
     }));
+    const scenario = vehicleScenarioRead(db, v.id);
     return {
       format: BUNDLE_FORMAT,
       version: BUNDLE_VERSION,
       vehicle: { name: v.name, kind: v.kind, notes: v.notes, createdAt: v.created_at },
+      ...(scenario.stored ? { scenario: scenario.scenario } : {}),
       revisions,
       dampers,
     };
@@ -246,6 +253,8 @@ export function bundleImport(
       return { points, trace };
     }),
   );
+  const scenario =
+    bundle.scenario === undefined ? undefined : rideScenarioParse(rideScenarioEdits(bundle.scenario));
   return storeTransaction(store, () => {
     const at = (options.now ?? new Date()).toISOString();
     if (vehicleByKey(db, nameKey(name)))
@@ -260,6 +269,8 @@ export function bundleImport(
       notes: bundle.vehicle.notes,
       created_at: bundle.vehicle.createdAt,
     });
+    if (scenario)
+      vehicleScenarioPut(db, vehicleId, { scenario_json: canonicalJson(scenario), scenario_updated_at: at });
     const result: BundleImportResult = {
       vehicle: name,
       revisions: bundle.revisions.length,

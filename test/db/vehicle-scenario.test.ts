@@ -2,6 +2,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { InputError } from '../../core/input-error';
 import { RIDE_SCENARIO_DEFAULT } from '../../core/ride-scenario';
+import { bundleExport, bundleImport } from '../../db/bundle';
 import { appSettingPut } from '../../db/queries/app-setting';
 import { migrationsApplied, migrationsKnown } from '../../db/migrations';
 import { storeClose, storeOpen, type Store } from '../../db/store';
@@ -90,19 +91,56 @@ describe('schema 4: the vehicle scenario', () => {
   it('reads a stored scenario with a part it cannot use as the starting scenario’s part', () => {
     const store = freshStore();
     const v = vehicleAdded(store);
-    store.db
-      .prepare('UPDATE vehicle SET scenario_json = ? WHERE id = ?')
-      .run(
-        JSON.stringify({
-          road: { roadClass: 'Z', speed: 20 },
-          bump: { height: 0.03, length: 0.5, speed: 10 },
-        }),
-        v.id,
-      );
+    store.db.prepare('UPDATE vehicle SET scenario_json = ? WHERE id = ?').run(
+      JSON.stringify({
+        road: { roadClass: 'Z', speed: 20 },
+        bump: { height: 0.03, length: 0.5, speed: 10 },
+      }),
+      v.id,
+    );
     const read = vehicleScenarioRead(store.db, v.id);
     expect(read.stored).toBe(true);
     expect(read.scenario.road).toEqual(RIDE_SCENARIO_DEFAULT.road);
     expect(read.scenario.bump).toEqual({ height: 0.03, length: 0.5, speed: 10 });
     expect(read.scenario.curb).toEqual(RIDE_SCENARIO_DEFAULT.curb);
+  });
+});
+
+describe('a bundle carries the vehicle scenario', () => {
+  it('exports a stored scenario and imports it with the vehicle; a bundle without one imports with none', () => {
+    const from = freshStore();
+    const v = vehicleAdded(from, 'Coupe');
+    setupSaved(from, v);
+    const none = bundleExport(from, 'Coupe');
+    expect(none.scenario).toBeUndefined();
+    vehicleScenarioWrite(from.db, v.id, {
+      road: { class: 'E', speed: '35 km/h' },
+      bump: { height: '60 mm' },
+    });
+    const bundle = bundleExport(from, 'Coupe');
+    expect(bundle.scenario?.road).toEqual({ roadClass: 'E', speed: 35 / 3.6 });
+    const to = freshStore();
+    bundleImport(to, bundle);
+    const id = to.db.prepare("SELECT id FROM vehicle WHERE name = 'Coupe'").pluck().get() as number;
+    expect(vehicleScenarioRead(to.db, id)).toMatchObject({ scenario: bundle.scenario, stored: true });
+    bundleImport(to, none, { asName: 'Coupe 2' });
+    const id2 = to.db.prepare("SELECT id FROM vehicle WHERE name = 'Coupe 2'").pluck().get() as number;
+    expect(vehicleScenarioRead(to.db, id2).stored).toBe(false);
+  });
+
+  it('refuses a bundle whose scenario does not read, naming the field, and stores nothing', () => {
+    const from = freshStore();
+    const v = vehicleAdded(from, 'Coupe');
+    setupSaved(from, v);
+    vehicleScenarioWrite(from.db, v.id, { bump: { height: '30 mm' } });
+    const bundle = bundleExport(from, 'Coupe');
+    const bad = {
+      ...bundle,
+      scenario: { ...bundle.scenario!, bump: { ...bundle.scenario!.bump, height: -0.01 } },
+    };
+    const to = freshStore();
+    const before = storeDigest(to);
+    expect(() => bundleImport(to, bad)).toThrow(/^scenario\.bump\.height: must be greater than zero/);
+    expect(storeDigest(to)).toBe(before);
   });
 });
