@@ -1,6 +1,6 @@
 import { InputError } from '../../core/input-error';
 import { ISO8608_CLASSES } from '../../core/random-road';
-import { rideScenarioParse, type RideScenario } from '../../core/ride-scenario';
+import { rideScenarioEdits, rideScenarioParse, type RideScenario } from '../../core/ride-scenario';
 import { quantityFormat, quantityToDisplay, type QuantityKind, type UnitSystem } from '../../core/units';
 import { quantityFieldValue } from './quantity-field';
 
@@ -77,13 +77,7 @@ export function scenarioFieldEdit(
 }
 
 /** A scenario as the API's edits write it: every field, numbers SI. */
-export function scenarioEditsOf(s: RideScenario): Record<string, Record<string, string | number>> {
-  return {
-    road: { class: s.road.roadClass, speed: s.road.speed },
-    bump: { ...s.bump },
-    curb: { ...s.curb },
-  };
-}
+export const scenarioEditsOf = (s: RideScenario) => rideScenarioEdits(s);
 
 /** A scenario in one line, in a unit system: what a result was worked out on. */
 export function scenarioText(s: RideScenario, system: UnitSystem): string {
