@@ -173,6 +173,8 @@ function presetsHuman(out: HandlerOutput<'valvingPresets'>, system: UnitSystem):
           objective: out.objective,
         },
         system,
+        // A choice is judged on the vehicle's own scenario; a preset's is a suggestion for it.
+        'Suggested scenario (vehicle scenario NAME … sets it)',
       ).slice(0, -1),
       '',
     );
