@@ -28,6 +28,9 @@ import {
 } from './setup-rows';
 import { storeTransaction, type Store } from './store';
 import { vehicleResolve } from './vehicle-ref';
+import { rideScenarioParse, type RideScenario } from '../core/valving/ride-scenario';
+import { vehicleScenarioPut } from './queries/vehicle-scenario';
+import { vehicleScenarioRead } from './vehicle-scenario';
 
 /** The `format` tag of an exchange bundle. */
 export const BUNDLE_FORMAT = 'rideledger-bundle' as const;
@@ -103,6 +106,8 @@ export type Bundle = {
   format: typeof BUNDLE_FORMAT;
   version: typeof BUNDLE_VERSION;
   vehicle: { name: string; kind: string; notes: string; createdAt: string };
+  /** The vehicle's scenario (SI), when one is stored (bundles before schema 4 have none). */
+  scenario?: RideScenario;
   revisions: BundleRevision[];
   dampers: BundleDamper[];
 };
@@ -178,10 +183,12 @@ export function bundleExport(store: Store, vehicleRef: string | number): Bundle 
       createdAt: d.created_at,
       runs: benchRunRowsOfDamper(db, d.id).map(benchRunToBundle),
     }));
+    const scenario = vehicleScenarioRead(db, v.id);
     return {
       format: BUNDLE_FORMAT,
       version: BUNDLE_VERSION,
       vehicle: { name: v.name, kind: v.kind, notes: v.notes, createdAt: v.created_at },
+      ...(scenario.stored ? { scenario: scenario.scenario } : {}),
       revisions,
       dampers,
     };
@@ -198,7 +205,7 @@ export type BundleImportResult = {
   runsAlreadyPresent: number;
 };
 
-const BUNDLE_KEYS = ['format', 'version', 'vehicle', 'revisions', 'dampers'] as const;
+const BUNDLE_KEYS = ['format', 'version', 'vehicle', 'revisions', 'dampers', 'scenario'] as const;
 const VEHICLE_KEYS = ['name', 'kind', 'notes', 'createdAt'] as const;
 const REVISION_KEYS = [
   'number',
@@ -275,6 +282,8 @@ type CheckedBundle = {
   vehicle: { name: string; kind: string; notes: string; createdAt: string };
   revisions: CheckedRevision[];
   dampers: CheckedDamper[];
+  /** The vehicle's scenario (SI), checked by the scenario's own rules, when the bundle has one. */
+  scenario: RideScenario | undefined;
 };
 
 function listParse(raw: unknown, field: string): unknown[] {
@@ -559,6 +568,17 @@ export function bundleVehicleChecked(raw: unknown, at: string): CheckedBundle['v
  * points and summaries from the sheets.
  * @throws InputError naming the record and field.
  */
+/** A carried scenario, checked by the scenario's own rules (the road's class under `roadClass`, SI). */
+function bundleScenarioChecked(raw: unknown): RideScenario {
+  const o = objectParse(raw, 'scenario', ['road', 'bump', 'curb']);
+  const road = objectParse(o.road, 'scenario.road', ['roadClass', 'speed']);
+  return rideScenarioParse({
+    road: { class: road.roadClass, speed: road.speed },
+    bump: o.bump,
+    curb: o.curb,
+  });
+}
+
 function bundleChecked(raw: unknown): CheckedBundle {
   const o = objectParse(raw, '', BUNDLE_KEYS);
   if (o.format !== BUNDLE_FORMAT)
@@ -603,7 +623,8 @@ function bundleChecked(raw: unknown): CheckedBundle {
     const parent = r.parent === null ? undefined : (revisions[r.parent - 1] as CheckedRevision).sheet;
     r.summary = setupRevisionSummary(parent, r.sheet, r.summary);
   }
-  return { vehicle, revisions, dampers };
+  const scenario = o.scenario === undefined ? undefined : bundleScenarioChecked(o.scenario);
+  return { vehicle, revisions, dampers, scenario };
 }
 
 /**
@@ -639,6 +660,11 @@ export function bundleImport(
       notes: bundle.vehicle.notes,
       created_at: bundle.vehicle.createdAt,
     });
+    if (bundle.scenario)
+      vehicleScenarioPut(db, vehicleId, {
+        scenario_json: canonicalJson(bundle.scenario),
+        scenario_updated_at: at,
+      });
     const result: BundleImportResult = {
       vehicle: vehicleName,
       revisions: bundle.revisions.length,

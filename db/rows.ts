@@ -11,6 +11,9 @@ export type VehicleRow = {
   notes: string;
   created_at: string;
   deleting: 0 | 1;
+  /** The vehicle's scenario as SI JSON (schema 4); null: none stored. */
+  scenario_json: string | null;
+  scenario_updated_at: string | null;
 };
 
 export type DamperUnitRow = {

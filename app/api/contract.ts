@@ -21,7 +21,7 @@ import {
   vehicleRefSchema,
   vehicleSchema,
 } from './store-schemas';
-import { valvingContract } from './valving-schemas';
+import { valvingContract, valvingScenarioSchema } from './valving-schemas';
 
 /** Names of the desktop app's settings and drafts: `caution-acknowledged`, `draft:Millbrook coupe #27`. */
 const settingKeySchema = z
@@ -31,6 +31,16 @@ const settingKeySchema = z
   .regex(/^[a-z][a-z0-9-]*(:.+)?$/, 'expected a setting name such as "units" or "draft:Vehicle name"');
 
 const vehicleNamed = z.strictObject({ id: z.number().int(), name: z.string() });
+
+/** A vehicle's scenario, SI: stored with it, or (stored: false) the starting scenario. */
+const vehicleScenarioOutput = z.strictObject({
+  vehicle: vehicleNamed,
+  scenario: valvingScenarioSchema,
+  stored: z.boolean(),
+  updatedAt: z.string().nullable(),
+  /** Where the scenario comes from, in words. */
+  note: z.string(),
+});
 
 /**
  * Which damper curve a corner runs (db/damper-resolve.ts): its source — a bench run at the
@@ -94,6 +104,23 @@ export const contract = {
       revisionsDeleted: z.number().int(),
       backupPath: z.string(),
     }),
+  },
+  vehicleScenario: {
+    /** The road, bump and curb this vehicle is judged on (Ride figures, Compare, Valving, the command). */
+    input: z.strictObject({ vehicle: vehicleRefSchema }),
+    output: vehicleScenarioOutput,
+  },
+  vehicleScenarioSet: {
+    input: z.strictObject({
+      vehicle: vehicleRefSchema,
+      /**
+       * {road: {class, speed}, bump: {height, length, speed}, curb: {height, rise, hold, drop,
+       * speed}}: the parts given replace the vehicle's (quantities with units, numbers SI), read by
+       * core, which names the bad field; null goes back to the starting scenario.
+       */
+      scenario: z.unknown(),
+    }),
+    output: vehicleScenarioOutput,
   },
 
   setupSave: {

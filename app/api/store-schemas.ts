@@ -1,3 +1,4 @@
+import { ISO8608_CLASSES } from '../../core/corner/random-road';
 import { z } from 'zod';
 import { BUNDLE_FORMAT, BUNDLE_VERSION } from '../../db/bundle';
 import { analyzeReportSchema, warningSchema } from './schemas';
@@ -192,6 +193,14 @@ export const bundleSchema = z.strictObject({
   format: z.literal(BUNDLE_FORMAT, `expected "${BUNDLE_FORMAT}"`),
   version: z.literal(BUNDLE_VERSION, `this program reads bundle version ${BUNDLE_VERSION}`),
   vehicle: z.strictObject({ name: z.string(), kind: z.string(), notes: z.string(), createdAt: z.string() }),
+  /** The vehicle's scenario, SI, when it has one stored; read again by core on import. */
+  scenario: z
+    .strictObject({
+      road: z.strictObject({ roadClass: z.enum(ISO8608_CLASSES), speed: finite }),
+      bump: z.strictObject({ height: finite, length: finite, speed: finite }),
+      curb: z.strictObject({ height: finite, rise: finite, hold: finite, drop: finite, speed: finite }),
+    })
+    .optional(),
   revisions: z.array(
     z.strictObject({
       number: z.number().int().positive(),

@@ -83,11 +83,11 @@ export function valvingScenarioText(s: Judged['scenario'], system: UnitSystem): 
 }
 
 /** The preset, the scenario, every target with its band, weight and source, and the objective. */
-export function valvingJudgedLines(j: Judged, system: UnitSystem): string[] {
+export function valvingJudgedLines(j: Judged, system: UnitSystem, scenarioHead = 'Judged on'): string[] {
   const lines = [
     `Preset: ${j.preset.title} (${j.preset.name}) — ${j.preset.use}`,
     textWrap(
-      `Judged on: ${valvingScenarioText(j.scenario, system)} [${j.scenarioSource.tag}: ${j.scenarioSource.text}]`,
+      `${scenarioHead}: ${valvingScenarioText(j.scenario, system)} [${j.scenarioSource.tag}: ${j.scenarioSource.text}]`,
       96,
       '    ',
     ).replace(/^ {4}/, '  '),

@@ -8,6 +8,7 @@ import { cornerAnalyze } from '../../core/figures/corner-analysis';
 import { bumpSpecParse, roadSpecParse, type BumpSpec, type RoadSpec } from '../../core/corner/corner-file';
 import { eventBump } from '../../core/events/event';
 import { eventWarnings } from '../../core/events/event-warnings';
+import { figureLabel, figureText, type FigureKey } from '../../core/units/figure-labels';
 import { frequencyResponseGrid, type FrequencyResponseMagnitude } from '../../core/corner/frequency-response';
 import { InputError } from '../../core/units/input-error';
 import type { EventMetrics } from '../../core/events/metrics';
@@ -368,42 +369,38 @@ const STEP_ROWS: readonly RowSpec[] = [
   },
 ];
 
+/** A row of a figure from core's one table of names and units (figure-labels.ts). */
+const figureRow = (
+  key: string,
+  figure: FigureKey,
+  value: (c: CornerResult) => number,
+  codes?: readonly string[],
+): RowSpec => ({
+  key,
+  label: figureLabel(figure, true),
+  text: (c, u) => figureText(figure, value(c), u),
+  ...(codes ? { codes } : {}),
+});
+
 const ROAD_ROWS: readonly RowSpec[] = [
-  quantityRow('roadBodyAccel', 'Body acceleration RMS', 'acceleration', (c) => c.randomRoad.bodyAccelRms),
-  quantityRow(
-    'roadBodyAccelWeighted',
-    'Body acceleration RMS, Wk-weighted (ISO 2631-1)',
-    'acceleration',
-    (c) => c.randomRoad.bodyAccelWeightedRms,
-  ),
-  {
-    key: 'roadTireLoad',
-    label: 'Dynamic tyre load RMS ÷ static',
-    text: (c) => percent(c.randomRoad.tireLoadRmsRatio),
-  },
-  quantityRow('roadTravel', 'Suspension travel RMS', 'length', (c) => c.randomRoad.travelRms),
+  figureRow('roadBodyAccel', 'roadBodyAccel', (c) => c.randomRoad.bodyAccelRms),
+  figureRow('roadBodyAccelWeighted', 'roadBodyAccelWeighted', (c) => c.randomRoad.bodyAccelWeightedRms),
+  figureRow('roadTireLoad', 'roadTireLoad', (c) => c.randomRoad.tireLoadRmsRatio),
+  figureRow('roadTravel', 'roadTravel', (c) => c.randomRoad.travelRms),
 ];
 
 const BUMP_ROWS: readonly RowSpec[] = [
-  quantityRow('bumpPeakAccel', 'Peak body acceleration', 'acceleration', (c) => c.bump.peakBodyAccel),
-  quantityRow('bumpPeakBody', 'Peak body displacement', 'length', (c) => c.bump.peakBodyDisplacement),
-  quantityRow(
-    'bumpMaxCompression',
-    'Most compression (at the wheel)',
-    'length',
-    (c) => c.bump.maxCompression,
-    ['travel-beyond-limit'],
-  ),
-  quantityRow('bumpMaxExtension', 'Most extension (at the wheel)', 'length', (c) => c.bump.maxExtension, [
+  figureRow('bumpPeakAccel', 'peakBodyAccel', (c) => c.bump.peakBodyAccel),
+  figureRow('bumpPeakBody', 'peakBodyDisplacement', (c) => c.bump.peakBodyDisplacement),
+  figureRow('bumpMaxCompression', 'maxCompression', (c) => c.bump.maxCompression, ['travel-beyond-limit']),
+  figureRow('bumpMaxExtension', 'maxExtension', (c) => c.bump.maxExtension, [
     'rebound-limit-reached',
     'spring-unloaded',
   ]),
-  quantityRow('bumpMinTireLoad', 'Least tyre load', 'force', (c) => c.bump.minTireLoad),
-  quantityRow('bumpMaxTireLoad', 'Most tyre load', 'force', (c) => c.bump.maxTireLoad),
-  quantityRow('bumpAirborne', 'Tyre off the road', 'time', (c) => c.bump.airborneTime, ['tire-lift-off']),
-  quantityRow('bumpStopTime', 'Bump stop in contact', 'time', (c) => c.bump.bumpStopContactTime, [
-    'bump-stop-engaged',
-  ]),
+  figureRow('bumpMinTireLoad', 'minTireLoad', (c) => c.bump.minTireLoad),
+  figureRow('bumpMaxTireLoad', 'maxTireLoad', (c) => c.bump.maxTireLoad),
+  figureRow('bumpAirborne', 'airborneTime', (c) => c.bump.airborneTime, ['tire-lift-off']),
+  figureRow('bumpStopTime', 'bumpStopTime', (c) => c.bump.bumpStopContactTime, ['bump-stop-engaged']),
   {
     key: 'bumpShaftSpeed',
     label: 'Peak shaft speed, bump / rebound',

@@ -1,11 +1,13 @@
 import type { HandlerInput, HandlerName, HandlerOutput } from '../api/contract';
+import { messagePlain } from './plain-words';
 
 /** An API call that failed; `field` names the bad input where there is one. */
 export class ApiCallError extends Error {
   readonly status: number;
   readonly field: string | undefined;
   constructor(status: number, message: string, field?: string) {
-    super(message);
+    // The screens speak of their own fields and buttons, not of the command's options.
+    super(messagePlain(message, field));
     this.name = 'ApiCallError';
     this.status = status;
     this.field = field;

@@ -1,6 +1,7 @@
+import { FIGURES } from '../units/figure-labels';
+import type { RoadSpec } from '../corner/corner-file';
 import type { ClickAdjuster, ClickSettings } from '../damper/click-settings';
 import { cornerQuarterCar, cornerRideFigures, type CornerInput } from '../corner/corner';
-import type { RoadSpec } from '../corner/corner-file';
 import { eventWarnings } from '../events/event-warnings';
 import { modesOf } from '../corner/modal';
 import type { QuantityKind, UnitSystem } from '../units/units';
@@ -56,19 +57,19 @@ export const VALVING_HEADLINES: Record<
   { label: string; short: string; kind: QuantityKind | null; of: (f: ValvingFigures) => number | null }
 > = {
   rideFrequencyHz: {
-    label: 'ride frequency',
+    label: FIGURES.rideFrequency.label,
     short: 'ride',
     kind: 'frequency',
     of: (f) => f.rideFrequencyHz,
   },
   bodyFrequencyHz: {
-    label: 'body mode',
+    label: FIGURES.bodyMode.label,
     short: 'body Hz',
     kind: 'frequency',
     of: (f) => f.modes.body?.frequencyHz ?? null,
   },
   bodyDampingRatio: {
-    label: 'body mode ζ',
+    label: FIGURES.bodyModeDamping.label,
     short: 'body ζ',
     kind: null,
     of: (f) => f.modes.body?.dampingRatio ?? null,
@@ -88,49 +89,49 @@ export const VALVING_HEADLINES: Record<
     of: (f) => f.dampingRatio.reboundHighSpeed,
   },
   roadWeightedAccel: {
-    label: 'road: weighted accel. RMS',
+    label: `road: ${FIGURES.roadBodyAccelWeighted.label}`,
     short: 'road Wk',
     kind: 'acceleration',
     of: (f) => f.randomRoad.bodyAccelWeightedRms,
   },
   roadTireLoad: {
-    label: 'road: tyre load RMS ÷ static',
+    label: `road: ${FIGURES.roadTireLoad.label}`,
     short: 'road tyre',
     kind: null,
     of: (f) => f.randomRoad.tireLoadRmsRatio,
   },
   roadTravel: {
-    label: 'road: travel RMS',
+    label: `road: ${FIGURES.roadTravel.label}`,
     short: 'road travel',
     kind: 'length',
     of: (f) => f.randomRoad.travelRms,
   },
   bumpPeakAccel: {
-    label: 'bump: peak body accel.',
+    label: `bump: ${FIGURES.peakBodyAccel.label}`,
     short: 'bump accel',
     kind: 'acceleration',
     of: (f) => f.bump.peakBodyAccel,
   },
   bumpAirborneTime: {
-    label: 'bump: tyre in the air',
+    label: `bump: ${FIGURES.airborneTime.label}`,
     short: 'bump air',
     kind: 'time',
     of: (f) => f.bump.airborneTime,
   },
   curbPeakAccel: {
-    label: 'curb: peak body accel.',
+    label: `curb: ${FIGURES.peakBodyAccel.label}`,
     short: 'curb accel',
     kind: 'acceleration',
     of: (f) => f.curb.peakBodyAccel,
   },
   curbAirborneTime: {
-    label: 'curb: tyre in the air',
+    label: `curb: ${FIGURES.airborneTime.label}`,
     short: 'curb air',
     kind: 'time',
     of: (f) => f.curb.airborneTime,
   },
   bumpStopTime: {
-    label: 'on the bump stop (longer event)',
+    label: `${FIGURES.bumpStopTime.label} (the longer event)`,
     short: 'on stop',
     kind: 'time',
     of: (f) => Math.max(f.bump.bumpStopContactTime, f.curb.bumpStopContactTime),

@@ -1,3 +1,4 @@
+import { FIGURES } from '../units/figure-labels';
 import { objectParse } from '../corner/corner-file';
 import { InputError, inputFieldPath } from '../units/input-error';
 import { quantityParse, type QuantityKind } from '../units/units';
@@ -83,42 +84,47 @@ export const VALVING_TARGET_SPECS: Record<
   rideFrequency: {
     label: 'ride frequency',
     kind: 'frequency',
-    figures: [{ figure: 'ride frequency', of: (f) => f.rideFrequencyHz }],
+    figures: [{ figure: FIGURES.rideFrequency.label, of: (f) => f.rideFrequencyHz }],
   },
   roadComfort: {
     label: 'Wk-weighted body acceleration RMS on the random road',
     kind: 'acceleration',
-    figures: [{ figure: 'weighted body accel. RMS (road)', of: (f) => f.randomRoad.bodyAccelWeightedRms }],
+    figures: [
+      {
+        figure: `road: ${FIGURES.roadBodyAccelWeighted.label}`,
+        of: (f) => f.randomRoad.bodyAccelWeightedRms,
+      },
+    ],
   },
   roadTireLoad: {
     label: 'dynamic tyre load RMS ÷ static load on the random road',
     kind: null,
-    figures: [{ figure: 'tyre load RMS ÷ static (road)', of: (f) => f.randomRoad.tireLoadRmsRatio }],
+    figures: [{ figure: `road: ${FIGURES.roadTireLoad.label}`, of: (f) => f.randomRoad.tireLoadRmsRatio }],
   },
   bumpPeakAccel: {
     label: 'peak body acceleration over the bump',
     kind: 'acceleration',
-    figures: [{ figure: 'peak body accel. (bump)', of: (f) => f.bump.peakBodyAccel }],
+    figures: [{ figure: `bump: ${FIGURES.peakBodyAccel.label}`, of: (f) => f.bump.peakBodyAccel }],
   },
   curbPeakAccel: {
     label: 'peak body acceleration over the curb',
     kind: 'acceleration',
-    figures: [{ figure: 'peak body accel. (curb)', of: (f) => f.curb.peakBodyAccel }],
+    figures: [{ figure: `curb: ${FIGURES.peakBodyAccel.label}`, of: (f) => f.curb.peakBodyAccel }],
   },
   airborneTime: {
-    label: 'time with the tyre off the road, over the bump and over the curb',
+    label: `${FIGURES.airborneTime.label}, over the bump and over the curb`,
     kind: 'time',
     figures: [
-      { figure: 'tyre in the air (bump)', of: (f) => f.bump.airborneTime },
-      { figure: 'tyre in the air (curb)', of: (f) => f.curb.airborneTime },
+      { figure: `bump: ${FIGURES.airborneTime.label}`, of: (f) => f.bump.airborneTime },
+      { figure: `curb: ${FIGURES.airborneTime.label}`, of: (f) => f.curb.airborneTime },
     ],
   },
   bumpStopContact: {
-    label: 'time on the bump stop, over the bump and over the curb',
+    label: `${FIGURES.bumpStopTime.label}, over the bump and over the curb`,
     kind: 'time',
     figures: [
-      { figure: 'on the bump stop (bump)', of: (f) => f.bump.bumpStopContactTime },
-      { figure: 'on the bump stop (curb)', of: (f) => f.curb.bumpStopContactTime },
+      { figure: `bump: ${FIGURES.bumpStopTime.label}`, of: (f) => f.bump.bumpStopContactTime },
+      { figure: `curb: ${FIGURES.bumpStopTime.label}`, of: (f) => f.curb.bumpStopContactTime },
     ],
   },
 };

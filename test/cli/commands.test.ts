@@ -200,7 +200,7 @@ describe('rideledger, given bad input', () => {
     [
       'an unknown subcommand',
       () => ['vehicle', 'frob'],
-      /^rideledger vehicle: vehicle needs add, list, show or delete \(got "frob"\)/,
+      /^rideledger vehicle: vehicle needs add, list, show, delete or scenario \(got "frob"\)/,
     ],
     [
       'an unknown option',

@@ -21,7 +21,7 @@ describe('rideledger simulate', () => {
     const r = await run('simulate', DEMO, '--event', 'bump');
     expect(r.code).toBe(0);
     expect(r.out).toMatch(/Event: the 25\.0 mm bump/);
-    expect(r.out).toMatch(/tyre airborne/);
+    expect(r.out).toMatch(/time in the air/);
     expect(r.out).toMatch(/The tyre leaves the road/);
     expect(r.out).toMatch(/Caution: Suspension changes alter/);
   });

@@ -112,9 +112,7 @@ describe.skipIf(!chromium)('Ride figures, in Chromium against the served app', (
       .poll(() => page.locator('#analysis-bumpHeight-error').innerText())
       .toMatch(/could not read "abc"/);
     expect(await height.getAttribute('aria-invalid')).toBe('true');
-    await expect
-      .poll(() => page.getByText('The figures below are for the previous road and bump').count())
-      .toBe(1);
+    await expect.poll(() => page.getByText('The figures are for the last values that read').count()).toBe(1);
     expect(await cell(page, 'wheelRate', 'FL').innerText()).toBe('64.8 N/mm');
     await height.fill('40');
     await expect
@@ -128,7 +126,8 @@ describe.skipIf(!chromium)('Ride figures, in Chromium against the served app', (
     await page.getByLabel('US', { exact: true }).check();
     // 64.8 N/mm = 370 lbf/in (1 lbf/in = 175.1268 N/m, NIST SP 811 [pub]).
     await expect.poll(() => cell(page, 'wheelRate', 'FL').innerText()).toBe('370 lbf/in');
-    expect(await page.getByLabel('Road speed').inputValue()).toBe('62.1371');
+    // The vehicle's scenario converted, to 4 significant figures: 100 km/h = 62.14 mph.
+    expect(await page.getByLabel('Road speed').inputValue()).toBe('62.14');
     expect(await cell(page, 'bumpMaxCompression', 'FL').innerText()).toMatch(/ in$/);
     expect(await page.locator('figure[data-plot="bump-travel"]').innerText()).toContain('Travel (in)');
     await screenshotSave(page, 'ride-figures-us');

@@ -19,7 +19,14 @@ import {
   valvingMapHandler,
   valvingPresetsHandler,
 } from './valving';
-import { vehicleAdd, vehicleDeleteHandler, vehicleListHandler, vehicleShow } from './vehicle';
+import {
+  vehicleAdd,
+  vehicleDeleteHandler,
+  vehicleListHandler,
+  vehicleScenarioHandler,
+  vehicleScenarioSetHandler,
+  vehicleShow,
+} from './vehicle';
 
 /** Every handler of the contract, by name; `satisfies` keeps the map and the contract in step. */
 export const handlers = {
@@ -28,6 +35,8 @@ export const handlers = {
   vehicleList: vehicleListHandler,
   vehicleShow,
   vehicleDelete: vehicleDeleteHandler,
+  vehicleScenario: vehicleScenarioHandler,
+  vehicleScenarioSet: vehicleScenarioSetHandler,
   setupSave: setupSaveHandler,
   setupShow: setupShowHandler,
   setupDampers: setupDampersHandler,

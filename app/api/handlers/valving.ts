@@ -1,4 +1,5 @@
 import type Database from 'better-sqlite3';
+import { setupSheetResolve } from '../../../db/damper-resolve';
 import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../../core/safety/caution';
 import { InputError } from '../../../core/units/input-error';
 import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../../../core/setup/setup-sheet';
@@ -19,8 +20,8 @@ import {
   VALVING_OBJECTIVE,
   VALVING_TARGET_KEYS,
   VALVING_TARGET_SPECS,
+  type ValvingSource,
 } from '../../../core/valving/valving-targets';
-import { setupSheetResolve } from '../../../db/damper-resolve';
 import { damperUnitResolve } from '../../../db/damper-units';
 import { benchPointsDecode } from '../../../db/bench-points';
 import { benchRunsWithPointsOfDamper } from '../../../db/queries/bench-run';
@@ -31,6 +32,7 @@ import { vehicleResolve } from '../../../db/vehicle-ref';
 import type { ApiContext } from '../context';
 import type { HandlerOutput, HandlerParsedInput } from '../contract';
 import { valvingSweepParallel } from '../valving-pool';
+import { vehicleJudgedScenario } from './vehicle';
 
 /** A damper unit's bench runs as the map reads them: clicks and the measured tables of their points. */
 function valvingRunsOf(
@@ -83,12 +85,12 @@ function damperLabelOf(
   return recorded;
 }
 
-function judgedOn(settings: ValvingSettings) {
+function judgedOn(settings: ValvingSettings, scenarioSource: ValvingSource) {
   const p = settings.preset;
   return {
     preset: { name: p.name, title: p.title, use: p.use },
     scenario: settings.scenario,
-    scenarioSource: p.scenarioSource,
+    scenarioSource,
     targets: settings.targets,
     objective: VALVING_OBJECTIVE,
     caution: CAUTION_TEXT,
@@ -151,8 +153,11 @@ export async function valvingChooseHandler(
   ctx: ApiContext,
 ): Promise<HandlerOutput<'valvingChoose'>> {
   const db = ctx.store.db;
-  const settings = valvingSettingsOf(input.preset, input);
+  const preset = valvingSettingsOf(input.preset, input);
   const { v, r, sheet } = revisionOf(db, input);
+  // The vehicle's own scenario, not the preset's: one scenario per vehicle on every screen.
+  const judged = vehicleJudgedScenario(ctx.store, v, input.scenario);
+  const settings = { ...preset, scenario: judged.scenario };
   const positions = CORNER_POSITIONS.filter((p) => input.corners.includes(p));
   // One sweep per damper unit, over the corners that use it.
   const groups = new Map<string, { label: string; curves: ValvingCurves; positions: CornerPosition[] }>();
@@ -206,7 +211,7 @@ export async function valvingChooseHandler(
   return {
     vehicle: { id: v.id, name: v.name },
     revision: r.number,
-    ...judgedOn(settings),
+    ...judgedOn(settings, judged.source),
     dampers: [...groups.values()].map((g) => ({
       label: g.label,
       positions: g.positions,
@@ -232,10 +237,13 @@ export function setupCompareHandler(
   input: HandlerParsedInput<'setupCompare'>,
   { store }: ApiContext,
 ): HandlerOutput<'setupCompare'> {
-  const settings = valvingSettingsOf(input.preset, input);
+  const preset = valvingSettingsOf(input.preset, input);
   const a = revisionOf(store.db, input.a, 'a');
   const b = revisionOf(store.db, input.b, 'b');
-  // Each corner runs the damper curve of its clicks (db/damper-resolve.ts), as on every screen.
+  // Judged on the first revision's vehicle's scenario; each corner runs the damper curve of its
+  // clicks (db/damper-resolve.ts), as on every screen.
+  const judged = vehicleJudgedScenario(store, a.v, input.scenario);
+  const settings = { ...preset, scenario: judged.scenario };
   const compared = valvingCompare(
     setupSheetResolve(store.db, a.sheet).sheet,
     setupSheetResolve(store.db, b.sheet).sheet,
@@ -246,7 +254,7 @@ export function setupCompareHandler(
   return {
     a: { vehicle: a.v.name, revision: a.r.number, name: a.r.name },
     b: { vehicle: b.v.name, revision: b.r.number, name: b.r.name },
-    ...judgedOn(settings),
+    ...judgedOn(settings, judged.source),
     ...compared,
   };
 }

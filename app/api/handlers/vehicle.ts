@@ -1,4 +1,6 @@
 import { InputError } from '../../../core/units/input-error';
+import { RIDE_SCENARIO_DEFAULT_NOTE } from '../../../core/valving/ride-scenario';
+import { valvingScenarioEdit } from '../../../core/valving/valving-presets';
 import { CORNER_POSITIONS } from '../../../core/setup/setup-sheet';
 import { nameFieldParse, nameKey, NOTES_MAX_LENGTH, textFieldParse } from '../../../core/units/text-field';
 import { setupCornersOf } from '../../../db/queries/setup-corner';
@@ -8,6 +10,11 @@ import type { VehicleListRow } from '../../../db/queries/vehicle';
 import { storeTransaction } from '../../../db/store';
 import { vehicleDeleteWithBackup } from '../../../db/vehicle-delete';
 import { vehicleResolve } from '../../../db/vehicle-ref';
+import {
+  vehicleScenarioRead,
+  vehicleScenarioWrite,
+  type VehicleScenario,
+} from '../../../db/vehicle-scenario';
 import type { ApiContext } from '../context';
 import type { HandlerOutput, HandlerParsedInput } from '../contract';
 import { revisionViewOf, vehicleViewOf } from '../record-views';
@@ -79,4 +86,56 @@ export async function vehicleDeleteHandler(
 ): Promise<HandlerOutput<'vehicleDelete'>> {
   const v = vehicleResolve(store.db, input.vehicle);
   return vehicleDeleteWithBackup(store, v);
+}
+
+function scenarioViewOf(
+  v: { id: number; name: string },
+  s: VehicleScenario,
+): HandlerOutput<'vehicleScenario'> {
+  return {
+    vehicle: { id: v.id, name: v.name },
+    ...s,
+    note: s.stored ? `the scenario set for "${v.name}"` : RIDE_SCENARIO_DEFAULT_NOTE,
+  };
+}
+
+/** Handler `vehicleScenario`: the road, bump and curb a vehicle is judged on (the starting scenario when none is stored). */
+export function vehicleScenarioHandler(
+  input: HandlerParsedInput<'vehicleScenario'>,
+  { store }: ApiContext,
+): HandlerOutput<'vehicleScenario'> {
+  const v = vehicleResolve(store.db, input.vehicle);
+  return scenarioViewOf(v, vehicleScenarioRead(store.db, v.id));
+}
+
+/** Handler `vehicleScenarioSet`: changes the parts of a vehicle's scenario given (null: back to the starting one). */
+export function vehicleScenarioSetHandler(
+  input: HandlerParsedInput<'vehicleScenarioSet'>,
+  { store }: ApiContext,
+): HandlerOutput<'vehicleScenarioSet'> {
+  return storeTransaction(store, () => {
+    const v = vehicleResolve(store.db, input.vehicle);
+    return scenarioViewOf(v, vehicleScenarioWrite(store.db, v.id, input.scenario));
+  });
+}
+
+/**
+ * The scenario a choice or a comparison of `vehicleId` is judged on: the vehicle's (stored or
+ * the starting one) with the request's own scenario edits on top, and where it comes from.
+ */
+export function vehicleJudgedScenario(
+  store: ApiContext['store'],
+  vehicle: { id: number; name: string },
+  edits: unknown,
+): { scenario: VehicleScenario['scenario']; source: { tag: 'user' | 'ours'; text: string } } {
+  const s = vehicleScenarioRead(store.db, vehicle.id);
+  const scenario = valvingScenarioEdit(s.scenario, edits);
+  const words = s.stored ? `the scenario set for "${vehicle.name}"` : RIDE_SCENARIO_DEFAULT_NOTE;
+  return {
+    scenario,
+    source: {
+      tag: s.stored || edits !== undefined ? 'user' : 'ours',
+      text: edits === undefined ? words : `${words}, with this request's changes`,
+    },
+  };
 }

@@ -1,3 +1,4 @@
+import { figureLabel, figureText } from '../../../core/units/figure-labels';
 import { parseArgs } from 'node:util';
 import { CAUTION_TEXT } from '../../../core/safety/caution';
 import type { CornerAnalysis } from '../../../core/figures/corner-analysis';
@@ -133,11 +134,14 @@ export function analyzeHumanReport(a: CornerAnalysis, system: UnitSystem): strin
     );
     out.push(
       tableFormat([
-        ['body acceleration RMS', n(rr.bodyAccelRms, 3, 'm/s²')],
-        ['weighted (ISO 2631-1 Wk)', n(rr.bodyAccelWeightedRms, 3, 'm/s²')],
+        [figureLabel('roadBodyAccel'), figureText('roadBodyAccel', rr.bodyAccelRms, system)],
+        [
+          figureLabel('roadBodyAccelWeighted'),
+          figureText('roadBodyAccelWeighted', rr.bodyAccelWeightedRms, system),
+        ],
         ['dynamic tyre load RMS', q(rr.tireLoadRms, 'force')],
-        ['  ÷ static tyre load', n(100 * rr.tireLoadRmsRatio, 1, '%')],
-        ['suspension travel RMS', q(rr.travelRms, 'length')],
+        [figureLabel('roadTireLoad'), figureText('roadTireLoad', rr.tireLoadRmsRatio, system)],
+        [figureLabel('roadTravel'), figureText('roadTravel', rr.travelRms, system)],
       ]),
     );
   }

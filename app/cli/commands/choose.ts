@@ -37,7 +37,8 @@ rideledger choose --presets [--json]
   --corner C         FL, FR, RL, RR, front, rear or all (repeat, or a comma list)
   --damper LABEL     the damper unit whose bench runs to use (default: the corner's own)
   --preset NAME      road-comfort, track-day, rally-stage or high-downforce-circuit
-  --presets          lists the presets: scenario and every target band with its source
+  --presets          lists the presets: a suggested scenario and every target band with
+                     its source
   --interpolate      also clicks between measured ones, interpolated between measured
                      neighbours (never beyond them) and marked * (interpolated)
   --target NAME=BAND a band: LOW..HIGH, ..HIGH or LOW.. (quantities with units, e.g.
@@ -46,7 +47,9 @@ rideledger choose --presets [--json]
   --targets FILE     a JSON file {"preset", "scenario", "targets", "weights"} (the flags
                      apply on top of it); scenario {road: {class, speed}, bump: {height,
                      length, speed}, curb: {height, rise, hold, drop, speed}}
-  --road CLASS --speed SPEED   the random road (ISO 8608 class A–H and speed)
+  --road CLASS --speed SPEED   the random road (ISO 8608 class A–H and speed); the road,
+                     bump and curb not given are the vehicle's scenario (rideledger vehicle
+                     scenario NAME shows and sets it)
   --best N           how many to show per corner (default 3)
   --threads N        worker threads (default one a core; 0 works in this thread only)
   --units si|us`;
@@ -171,6 +174,8 @@ function presetsHuman(out: HandlerOutput<'valvingPresets'>, system: UnitSystem):
           objective: out.objective,
         },
         system,
+        // A choice is judged on the vehicle's own scenario; a preset's is a suggestion for it.
+        'Suggested scenario (vehicle scenario NAME … sets it)',
       ).slice(0, -1),
       '',
     );

@@ -30,8 +30,9 @@ export const COMPARE_USAGE = `rideledger [--db FILE] compare VEHICLE@A [VEHICLE@
   With one revision: against its parent.
   With --vehicle, revisions may be plain numbers: compare 3 5 --vehicle Coupe.
 
-  --preset NAME      the scenario and targets (default track-day; choose --presets lists them)
-  --road CLASS --speed SPEED   the random road (ISO 8608 class A–H and speed)
+  --preset NAME      the targets (default track-day; choose --presets lists them)
+  --road CLASS --speed SPEED   the random road (ISO 8608 class A–H and speed); without
+                     them, the first vehicle's scenario (rideledger vehicle scenario NAME)
   --target NAME=BAND, --weight NAME=W, --targets FILE   as for choose
   --units si|us`;
 

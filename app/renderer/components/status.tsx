@@ -1,10 +1,18 @@
 import { ApiCallError } from '../api-client';
+import { messagePlain } from '../plain-words';
 
 /** A line saying what went wrong, in words, with the field where there is one. */
 export function ErrorLine(props: { error: unknown }) {
   if (!props.error) return null;
   const e = props.error;
-  const text = e instanceof ApiCallError ? e.message : e instanceof Error ? e.message : String(e);
+  const field = (e as { field?: unknown }).field;
+  const text =
+    e instanceof ApiCallError
+      ? e.message
+      : messagePlain(
+          e instanceof Error ? e.message : String(e),
+          typeof field === 'string' ? field : undefined,
+        );
   return (
     <p className="status error" role="alert">
       {text}

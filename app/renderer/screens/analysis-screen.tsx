@@ -1,18 +1,13 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { CornerInput } from '../../../core/corner/corner';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
-import { quantityUnitLabel, type UnitSystem } from '../../../core/units/units';
+import type { UnitSystem } from '../../../core/units/units';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
 import {
-  ROAD_CLASSES,
   analysisFigureGroups,
-  analysisOptionTextsConvert,
-  analysisOptionTextsDefault,
-  analysisOptionsRead,
   analysisPlots,
-  type AnalysisOptionTexts,
   type AnalysisOptions,
   type AnalysisResult,
   type FigureGroup,
@@ -23,8 +18,8 @@ import { revisionCornersOf } from '../revision-dampers';
 import { CautionLine, WarningList } from '../components/caution';
 import { LinePlot } from '../components/plot';
 import { RevisionPicker } from '../components/revision-pick';
+import { ScenarioPanel, useVehicleScenario } from '../components/scenario-panel';
 import { ErrorLine, ProgressLine } from '../components/status';
-import { TextInputField } from '../components/text-input-field';
 
 type Shown = {
   pick: RevisionPick;
@@ -36,56 +31,6 @@ type Shown = {
 const PROGRESS_DELAY_MS = 150;
 /** Typing pauses this long before the figures are worked out again. */
 const RECOMPUTE_DELAY_MS = 250;
-
-const OPTION_FIELDS: { key: keyof AnalysisOptionTexts; label: string; kind: 'speed' | 'length' }[] = [
-  { key: 'roadSpeed', label: 'Road speed', kind: 'speed' },
-  { key: 'bumpHeight', label: 'Bump height', kind: 'length' },
-  { key: 'bumpLength', label: 'Bump length', kind: 'length' },
-  { key: 'bumpSpeed', label: 'Bump speed', kind: 'speed' },
-];
-
-function OptionsForm(props: {
-  texts: AnalysisOptionTexts;
-  units: UnitSystem;
-  problems: Map<keyof AnalysisOptionTexts, string>;
-  onChange: (texts: AnalysisOptionTexts) => void;
-}) {
-  const { texts, problems } = props;
-  return (
-    <fieldset className="analysis-options">
-      <legend>Road and bump</legend>
-      <div className="option-fields">
-        <div className="field">
-          <label htmlFor="analysis-road-class">Road class (ISO 8608)</label>
-          <select
-            id="analysis-road-class"
-            value={texts.roadClass}
-            onChange={(e) => props.onChange({ ...texts, roadClass: e.target.value })}
-          >
-            {ROAD_CLASSES.map((c) => (
-              <option key={c} value={c}>
-                {c}
-              </option>
-            ))}
-          </select>
-          <span className="unit" />
-        </div>
-        {OPTION_FIELDS.map((f) => (
-          <TextInputField
-            key={f.key}
-            id={`analysis-${f.key}`}
-            label={f.label}
-            value={texts[f.key]}
-            unit={quantityUnitLabel(f.kind, props.units)}
-            problem={problems.get(f.key)}
-            numeric
-            onChange={(text) => props.onChange({ ...texts, [f.key]: text })}
-          />
-        ))}
-      </div>
-    </fieldset>
-  );
-}
 
 function FiguresTable(props: { groups: FigureGroup[] }) {
   return (
@@ -172,8 +117,6 @@ export function AnalysisScreen() {
   const { units } = app;
   const [shown, setShown] = useState<Shown | null>(null);
   const [loadError, setLoadError] = useState<unknown>(null);
-  const [texts, setTexts] = useState<AnalysisOptionTexts>(() => analysisOptionTextsDefault(units));
-  const textsUnits = useRef<UnitSystem>(units);
   const [result, setResult] = useState<{ result: AnalysisResult; key: string; pick: RevisionPick } | null>(
     null,
   );
@@ -184,6 +127,8 @@ export function AnalysisScreen() {
   const pick = app.revision;
   const { openRevision } = app;
   const onPick = useCallback((p: RevisionPick) => openRevision(p), [openRevision]);
+  // The road and bump are the vehicle's scenario, stored SI: the unit switch never changes them.
+  const scenario = useVehicleScenario(pick?.vehicle ?? null);
 
   // Load the revision picked.
   useEffect(() => {
@@ -209,17 +154,11 @@ export function AnalysisScreen() {
     };
   }, [pick, app.dataVersion]);
 
-  // The units switch converts the road and bump fields in place.
-  useEffect(() => {
-    if (textsUnits.current === units) return;
-    setTexts((t) => analysisOptionTextsConvert(t, textsUnits.current, units));
-    textsUnits.current = units;
-  }, [units]);
-
-  // The texts are read in the system they were typed in; the switch converts them just after.
-  const read = useMemo(() => analysisOptionsRead(texts, textsUnits.current), [texts, units]);
-  const options: AnalysisOptions | null = 'options' in read ? read.options : null;
-  const problems = 'problems' in read ? read.problems : new Map<keyof AnalysisOptionTexts, string>();
+  const current = scenario.shown?.vehicle === pick?.vehicle ? scenario.shown?.scenario : undefined;
+  const options: AnalysisOptions | null = useMemo(
+    () => (current ? { road: current.road, bump: current.bump } : null),
+    [current],
+  );
   const runKey = shown && options ? JSON.stringify([shown.pick, shown.revision.savedAt, options]) : null;
 
   // Work the figures out again a moment after the inputs settle; a newer run cancels an older one.
@@ -262,7 +201,6 @@ export function AnalysisScreen() {
   }, [runKey]);
 
   const groups = useMemo(() => (result ? analysisFigureGroups(result.result, units) : null), [result, units]);
-  const stale = result !== null && result.key !== runKey;
 
   return (
     <section aria-label="Ride figures">
@@ -279,7 +217,7 @@ export function AnalysisScreen() {
             {shown.revision.track ? ` · ${shown.revision.track}` : ''} · {shown.revision.summary}
           </p>
         ) : null}
-        <OptionsForm texts={texts} units={units} problems={problems} onChange={setTexts} />
+        <ScenarioPanel idPrefix="analysis" parts={['road', 'bump']} state={scenario} />
       </div>
       <ErrorLine error={loadError} />
       {running?.visible ? (
@@ -291,12 +229,6 @@ export function AnalysisScreen() {
       ) : null}
       <ErrorLine error={runError} />
       {!pick ? <p>Pick a vehicle and one of its revisions.</p> : null}
-      {stale && !options ? (
-        <p className="status" role="status">
-          The figures below are for the previous road and bump: fix the marked field, or change a value to
-          work them out again.
-        </p>
-      ) : null}
       {result && groups ? (
         <>
           <FiguresTable groups={groups} />

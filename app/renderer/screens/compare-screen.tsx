@@ -26,6 +26,7 @@ import { CornerChoice, PresetChoice } from '../components/choices';
 import { CautionLine, WarningList } from '../components/caution';
 import { LinePlot, type PlotSeries } from '../components/plot';
 import { RevisionPicker } from '../components/revision-pick';
+import { ScenarioPanel, useVehicleScenario } from '../components/scenario-panel';
 import { ErrorLine } from '../components/status';
 
 type Presets = HandlerOutput<'valvingPresets'>;
@@ -102,7 +103,9 @@ export function CompareScreen() {
     // The units switch asks again for the warnings' words; what is shown stays until the answer.
   }, [picks, preset, app.units, app.dataVersion]);
 
-  const scenario = presets?.presets.find((p) => p.name === preset)?.scenario;
+  // Judged on the first revision's vehicle's scenario (the answer says which it used).
+  const vehicleScenario = useVehicleScenario(picks[0]?.vehicle ?? null);
+  const scenario = compared[0]?.scenario ?? vehicleScenario.shown?.scenario;
   const targets = (compared[0]?.targets ??
     presets?.presets.find((p) => p.name === preset)?.targets ??
     {}) as ValvingTargets;
@@ -215,17 +218,10 @@ export function CompareScreen() {
         />
         <CornerChoice value={position} onChange={setPosition} />
       </div>
-      {scenario ? (
-        <p className="muted">
-          Scenario: ISO 8608 class {scenario.road.roadClass} at{' '}
-          {quantityFormat(scenario.road.speed, 'speed', app.units)}; a{' '}
-          {quantityFormat(scenario.bump.height, 'length', app.units)} bump{' '}
-          {quantityFormat(scenario.bump.length, 'length', app.units)} long at{' '}
-          {quantityFormat(scenario.bump.speed, 'speed', app.units)}; a{' '}
-          {quantityFormat(scenario.curb.height, 'length', app.units)} curb at{' '}
-          {quantityFormat(scenario.curb.speed, 'speed', app.units)}. {compared[0]?.objective ?? ''}
-        </p>
+      {picks.length > 0 ? (
+        <ScenarioPanel idPrefix={`${id}-scenario`} parts={['road', 'bump', 'curb']} state={vehicleScenario} />
       ) : null}
+      {compared[0] ? <p className="muted">{compared[0].objective}</p> : null}
       <ErrorLine error={error} />
       {rows.length > 0 && loaded.length >= 2 ? (
         <table className="figures" aria-label={`Headline figures at ${position}`} data-testid="compare-table">

@@ -16,9 +16,11 @@ import { VALVING_HEADLINES, valvingStepText } from '../../../core/valving/valvin
 import type { ValvingTargetKey } from '../../../core/valving/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall, apiJob, ApiCallError, type JobProgress } from '../api-client';
+import { scenarioText } from '../scenario-model';
 import { useApp, type RevisionPick } from '../app-context';
 import { CornerChoice, PresetChoice } from '../components/choices';
 import { CautionLine, WarningList } from '../components/caution';
+import { ScenarioPanel, useVehicleScenario } from '../components/scenario-panel';
 import { RevisionPicker } from '../components/revision-pick';
 import { ErrorLine, ProgressLine } from '../components/status';
 
@@ -343,6 +345,7 @@ export function ValvingScreen() {
   const [progress, setProgress] = useState<JobProgress | null>(null);
   const [error, setError] = useState<unknown>(null);
   const stop = useRef<AbortController | null>(null);
+  const scenario = useVehicleScenario(pick?.vehicle ?? null);
 
   useEffect(() => {
     apiCall('valvingPresets', {}).then(setPresets, setError);
@@ -541,6 +544,7 @@ export function ValvingScreen() {
       ) : pick ? (
         <p>Loading the map…</p>
       ) : null}
+      <ScenarioPanel idPrefix={`${id}-scenario`} parts={['road', 'bump', 'curb']} state={scenario} />
       <h3>Targets</h3>
       <div className="toolbar">
         <PresetChoice label="Preset" value={preset} presets={presets?.presets ?? []} onChange={setPreset} />
@@ -668,7 +672,8 @@ export function ValvingScreen() {
             <strong>Caution:</strong> {CAUTION_TEXT} {choice.valvingCaution}
           </div>
           <p className="muted">
-            {choice.combinations} combinations evaluated. {choice.objective}
+            {choice.combinations} combinations evaluated on {scenarioText(choice.scenario, app.units)}.{' '}
+            {choice.objective}
             {choice.units !== app.units
               ? ` The model warnings below are written in ${choice.units === 'si' ? 'SI' : 'US'} units, as when the clicks were ranked: rank again to rewrite them.`
               : ''}

@@ -310,8 +310,8 @@ describe('valving score', () => {
     });
     expect(out.checks[0]?.miss).toBeCloseTo(-0.05, 12);
     expect(out.checks.filter((c) => c.target === 'airborneTime').map((c) => c.figure)).toEqual([
-      'tyre in the air (bump)',
-      'tyre in the air (curb)',
+      'bump: time in the air',
+      'curb: time in the air',
     ]);
     expect(out.missed).toBe(3);
   });

@@ -1,31 +1,31 @@
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { cornerAnalyze } from '../../core/figures/corner-analysis';
-import { cornerFileParse, cornerInputParse } from '../../core/corner/corner-file';
-import { eventBump, eventCurb, eventPothole, eventStep } from '../../core/events/event';
-import { InputError } from '../../core/units/input-error';
-import { numberRounded, quantityRounded } from '../../core/units/number-text';
+import { cornerAnalyze } from '../../../core/figures/corner-analysis';
+import { cornerFileParse, cornerInputParse } from '../../../core/corner/corner-file';
+import { eventBump, eventCurb, eventPothole, eventStep } from '../../../core/events/event';
+import { InputError } from '../../../core/units/input-error';
+import { numberRounded, quantityRounded } from '../../../core/units/number-text';
 import {
   cornerInputWarnings,
   figuresFiniteCheck,
   PLAUSIBLE_RANGES,
   plausibleRangeText,
-} from '../../core/corner/plausible-range';
-import { setupFileParse } from '../../core/setup/setup-file';
-import { inputErrorOf } from '../input-error-fixture';
-import { setupFileFixture } from './setup-fixture';
-import { testCorner } from './test-corner';
+} from '../../../core/corner/plausible-range';
+import { setupFileParse } from '../../../core/setup/setup-file';
+import { inputErrorOf } from '../../input-error-fixture';
+import { setupFileFixture } from '../setup-fixture';
+import { testCorner } from '../test-corner';
 
 const demo = JSON.parse(
-  readFileSync(new URL('../../assets/demo/club-coupe-front-left.json', import.meta.url), 'utf8'),
+  readFileSync(new URL('../../../assets/demo/club-coupe-front-left.json', import.meta.url), 'utf8'),
 ) as { corner: Record<string, unknown>; bump: Record<string, unknown>; road: Record<string, unknown> };
 
 const cornerWith = (over: Record<string, unknown>) => ({ ...demo.corner, ...over });
 
 describe('the README', () => {
   it('states every plausible range and its reason as the program has them', () => {
-    const readme = readFileSync(new URL('../../README.md', import.meta.url), 'utf8');
+    const readme = readFileSync(new URL('../../../README.md', import.meta.url), 'utf8');
     const cell = (t: string) => ` ${t.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')} +\\|`;
     for (const [key, r] of Object.entries(PLAUSIBLE_RANGES)) {
       const k = key as keyof typeof PLAUSIBLE_RANGES;
