@@ -3,7 +3,6 @@ import { apiCall } from '../../app/api/call';
 import { cornerFileParse } from '../../core/corner/corner-file';
 import { eventSimulate } from '../../core/events/simulate';
 import { valvingEventsOf } from '../../core/valving/valving-evaluate';
-import { VALVING_PRESETS } from '../../core/valving/valving-presets';
 import { setupFileFixture } from '../core/setup-fixture';
 import { freshContext } from './api-fixture';
 
@@ -43,7 +42,7 @@ describe('one rule for a measured curve', () => {
     const ctx = freshContext();
     const setup = setupFileFixture();
     await apiCall('vehicleAdd', { name: 'Test coupe' }, ctx);
-    await apiCall('setupSave', { file: setup }, ctx);
+    await apiCall('setupSave', { file: setup, newDamperUnits: ['T-1', 'T-2'] }, ctx);
     await apiCall(
       'benchImport',
       { damper: 'T-1', source: { text: BENCH_TEXT, name: 'sweep.csv' }, clicks: 'bump 6 rebound 6' },
@@ -80,9 +79,10 @@ describe('one rule for a measured curve', () => {
     // low-speed slope is (0.025·150 + 0.05·280)/(0.025² + 0.05²) = 5680 N·s/m.
     expect(cell?.damper.bump.lowSpeed).toBeCloseTo(5680, 4);
 
-    // The events: the bump and the curb of the preset's scenario, simulated directly with the table curve.
+    // The events: the bump and the curb of the scenario choose judged on (the vehicle's), simulated
+    // directly with the table curve.
     const corner = cornerFileParse(cornerFile).corner;
-    const events = valvingEventsOf(VALVING_PRESETS['track-day'].scenario);
+    const events = valvingEventsOf(chosen.scenario);
     const bump = eventSimulate(corner, events.bump).metrics;
     const curb = eventSimulate(corner, events.curb).metrics;
     expectSame(pick?.headline.bumpPeakAccel, bump.peakBodyAccel);
