@@ -1,6 +1,7 @@
 import type { CornerInput } from '../../core/corner';
 import type { CornerPosition } from '../../core/setup-sheet';
-import { setupAnalyze, type AnalysisOptions, type AnalysisResult } from './analysis-model';
+import { setupAnalyze, type AnalysisResult } from './analysis-result';
+import { type AnalysisOptions } from './analysis-options';
 
 /** What the page asks of the analysis worker. */
 export type AnalysisRequest = {

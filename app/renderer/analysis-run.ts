@@ -1,6 +1,7 @@
 import type { CornerInput } from '../../core/corner';
 import type { CornerPosition } from '../../core/setup-sheet';
-import type { AnalysisOptions, AnalysisResult } from './analysis-model';
+import type { AnalysisOptions } from './analysis-options';
+import type { AnalysisResult } from './analysis-result';
 import type { AnalysisReply, AnalysisRequest } from './analysis-request';
 
 /** The analysis was stopped by the user (or replaced by a newer one) before it finished. */

@@ -1,16 +1,15 @@
 import { readFileSync } from 'node:fs';
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
+import { analysisCornersOf, setupAnalyze } from '../../app/renderer/analysis-result';
+import { analysisFigureGroups } from '../../app/renderer/analysis-figures';
 import {
-  analysisCornersOf,
-  analysisFigureGroups,
   analysisOptionTextsConvert,
   analysisOptionTextsDefault,
   analysisOptionsRead,
-  analysisPlots,
-  setupAnalyze,
   type AnalysisOptions,
-} from '../../app/renderer/analysis-model';
+} from '../../app/renderer/analysis-options';
+import { analysisPlots } from '../../app/renderer/analysis-plots';
 import type { CornerInput } from '../../core/corner';
 import { InputError } from '../../core/input-error';
 import { WORKED_CORNER, fourOf } from './worked-corner';

@@ -3,7 +3,7 @@ import {
   analysisOptionTextsDefault,
   analysisOptionsRead,
   type AnalysisOptions,
-} from '../../app/renderer/analysis-model';
+} from '../../app/renderer/analysis-options';
 import {
   analysisRequestAnswer,
   type AnalysisReply,

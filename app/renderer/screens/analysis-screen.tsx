@@ -7,17 +7,15 @@ import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
 import {
   ROAD_CLASSES,
-  analysisCornersOf,
-  analysisFigureGroups,
   analysisOptionTextsConvert,
   analysisOptionTextsDefault,
   analysisOptionsRead,
-  analysisPlots,
   type AnalysisOptionTexts,
   type AnalysisOptions,
-  type AnalysisResult,
-  type FigureGroup,
-} from '../analysis-model';
+} from '../analysis-options';
+import { analysisCornersOf, type AnalysisResult } from '../analysis-result';
+import { analysisFigureGroups, type FigureGroup } from '../analysis-figures';
+import { analysisPlots } from '../analysis-plots';
 import { AnalysisCancelled, analysisRun } from '../analysis-run';
 import { BarPlot } from '../components/bar-plot';
 import { CautionLine, WarningList } from '../components/caution';

@@ -5,7 +5,7 @@ import { InputError } from '../../../core/input-error';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup-sheet';
 import { numberFormat, quantityFormat, quantityUnitLabel, type UnitSystem } from '../../../core/units';
 import type { HandlerOutput } from '../../api/contract';
-import { analysisCornersOf } from '../analysis-model';
+import { analysisCornersOf } from '../analysis-result';
 import { ApiCallError, apiCall, apiJob } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
 import {
