@@ -1,6 +1,7 @@
 import type { FrequencyResponseMagnitude } from '../../core/frequency-response';
 import type { RandomRoadResponse } from '../../core/random-road';
-import { CORNER_POSITIONS } from '../../core/setup-sheet';
+import type { BumpSpec, RoadSpec } from '../../core/corner-file';
+import { CORNER_POSITIONS, type CornerPosition } from '../../core/setup-sheet';
 import { quantityUnitLabel, type UnitSystem } from '../../core/units';
 import type { BarSeries, PlotSeries } from './components/plot-data';
 import { bumpText, roadText, stepText } from './analysis-options';
@@ -39,44 +40,71 @@ export type AnalysisPlots = {
 const scaled = (values: ArrayLike<number>, factor: number) =>
   Float64Array.from(values as ArrayLike<number>, (v) => v * factor);
 
+/** What the linear model's plots are drawn from: the road and each corner's linear results. */
+export type LinearPlotSource = {
+  road: RoadSpec;
+  corners: Record<CornerPosition, Pick<CornerResult, 'stepHistory' | 'frf' | 'randomRoad'>>;
+};
+
+/** What the bump's plots are drawn from: the bump and each corner's history over it. */
+export type BumpPlotSource = {
+  bump: BumpSpec;
+  corners: Record<CornerPosition, Pick<CornerResult, 'bumpHistory'>>;
+};
+
+const unitsOf = (system: UnitSystem) => ({
+  len: quantityUnitLabel('length', system),
+  force: quantityUnitLabel('force', system),
+  accel: quantityUnitLabel('acceleration', system),
+  kLen: quantityDisplayFactor('length', system),
+  kForce: quantityDisplayFactor('force', system),
+  kAccel: quantityDisplayFactor('acceleration', system),
+});
+
+/** Body acceleration, travel and tyre load against time, one series a corner. */
+function historyPlots(
+  prefix: 'step' | 'bump',
+  heading: string,
+  histories: Record<CornerPosition, ResponseHistory>,
+  tireLabel: string,
+  system: UnitSystem,
+): LinePlotSpec[] {
+  const { len, force, accel, kLen, kForce, kAccel } = unitsOf(system);
+  return (
+    [
+      ['body-accel', 'body acceleration', `Acceleration (${accel})`, (h) => h.bodyAccel, kAccel],
+      ['travel', 'suspension travel, compression positive', `Travel (${len})`, (h) => h.travel, kLen],
+      ['tire-load', tireLabel.toLowerCase(), `Load (${force})`, (h) => h.tireLoad, kForce],
+    ] as const satisfies readonly (readonly [
+      string,
+      string,
+      string,
+      (h: ResponseHistory) => Float64Array,
+      number,
+    ])[]
+  ).map(([id, what, yLabel, signal, k]) => ({
+    id: `${prefix}-${id}`,
+    title: `${heading}: ${what} vs time`,
+    xLabel: 'Time (s)',
+    yLabel,
+    series: CORNER_POSITIONS.map((p) => ({
+      name: p,
+      x: histories[p].time,
+      y: scaled(signal(histories[p]), k),
+    })),
+  }));
+}
+
 /**
- * The screen's plots of a result in `system`: the step and bump time histories (body
- * acceleration, travel, tyre load), the frequency response on log axes, and the random-road
- * bars per corner; one series per corner, axis labels with their units.
+ * The linear model's plots in `system`: the step's time histories, the frequency response on
+ * log axes, and the random-road bars per corner.
  */
-export function analysisPlots(result: AnalysisResult, system: UnitSystem): AnalysisPlots {
-  const len = quantityUnitLabel('length', system);
-  const force = quantityUnitLabel('force', system);
-  const accel = quantityUnitLabel('acceleration', system);
-  const kLen = quantityDisplayFactor('length', system);
-  const kForce = quantityDisplayFactor('force', system);
-  const kAccel = quantityDisplayFactor('acceleration', system);
-  const corners = CORNER_POSITIONS.map((p) => result.corners[p]);
-  const history = (
-    prefix: 'step' | 'bump',
-    heading: string,
-    pick: (c: CornerResult) => ResponseHistory,
-    tireLabel: string,
-  ): LinePlotSpec[] =>
-    (
-      [
-        ['body-accel', 'body acceleration', `Acceleration (${accel})`, (h) => h.bodyAccel, kAccel],
-        ['travel', 'suspension travel, compression positive', `Travel (${len})`, (h) => h.travel, kLen],
-        ['tire-load', tireLabel.toLowerCase(), `Load (${force})`, (h) => h.tireLoad, kForce],
-      ] as const satisfies readonly (readonly [
-        string,
-        string,
-        string,
-        (h: ResponseHistory) => Float64Array,
-        number,
-      ])[]
-    ).map(([id, what, yLabel, signal, k]) => ({
-      id: `${prefix}-${id}`,
-      title: `${heading}: ${what} vs time`,
-      xLabel: 'Time (s)',
-      yLabel,
-      series: corners.map((c) => ({ name: c.position, x: pick(c).time, y: scaled(signal(pick(c)), k) })),
-    }));
+export function analysisLinearPlots(
+  source: LinearPlotSource,
+  system: UnitSystem,
+): Pick<AnalysisPlots, 'step' | 'frf' | 'randomRoad'> {
+  const { len, force, accel, kLen, kForce, kAccel } = unitsOf(system);
+  const corners = CORNER_POSITIONS.map((p) => ({ position: p, ...source.corners[p] }));
   const frfPlot = (
     id: string,
     what: string,
@@ -96,7 +124,7 @@ export function analysisPlots(result: AnalysisResult, system: UnitSystem): Analy
       y: Float64Array.from(c.frf, (f) => signal(f) * k),
     })),
   });
-  const road = roadText(result.options.road, system);
+  const road = roadText(source.road, system);
   const bar = (
     id: string,
     what: string,
@@ -112,18 +140,15 @@ export function analysisPlots(result: AnalysisResult, system: UnitSystem): Analy
     series: series.map((s) => ({ name: s.name, values: corners.map((c) => s.value(c.randomRoad)) })),
     decimals,
   });
+  const steps = {} as Record<CornerPosition, ResponseHistory>;
+  for (const p of CORNER_POSITIONS) steps[p] = source.corners[p].stepHistory;
   return {
-    step: history(
+    step: historyPlots(
       'step',
       `Road step of ${stepText(system)} (linear model)`,
-      (c) => c.stepHistory,
+      steps,
       'Dynamic tyre load',
-    ),
-    bump: history(
-      'bump',
-      `Bump ${bumpText(result.options.bump, system)} (nonlinear model)`,
-      (c) => c.bumpHistory,
-      'Tyre load',
+      system,
     ),
     frf: [
       frfPlot(
@@ -168,5 +193,30 @@ export function analysisPlots(result: AnalysisResult, system: UnitSystem): Analy
         system === 'si' ? 1 : 2,
       ),
     ],
+  };
+}
+
+/** The bump's time histories in `system`: body acceleration, travel and tyre load per corner. */
+export function analysisBumpPlots(source: BumpPlotSource, system: UnitSystem): LinePlotSpec[] {
+  const histories = {} as Record<CornerPosition, ResponseHistory>;
+  for (const p of CORNER_POSITIONS) histories[p] = source.corners[p].bumpHistory;
+  return historyPlots(
+    'bump',
+    `Bump ${bumpText(source.bump, system)} (nonlinear model)`,
+    histories,
+    'Tyre load',
+    system,
+  );
+}
+
+/**
+ * The screen's plots of a result in `system`: the step and bump time histories (body
+ * acceleration, travel, tyre load), the frequency response on log axes, and the random-road
+ * bars per corner; one series per corner, axis labels with their units.
+ */
+export function analysisPlots(result: AnalysisResult, system: UnitSystem): AnalysisPlots {
+  return {
+    ...analysisLinearPlots({ road: result.options.road, corners: result.corners }, system),
+    bump: analysisBumpPlots({ bump: result.options.bump, corners: result.corners }, system),
   };
 }

@@ -12,6 +12,7 @@ import { eventSimulate } from '../../core/simulate';
 import { stepResponseHistory, type StepResponse } from '../../core/step-response';
 import type { UnitSystem } from '../../core/units';
 import { cornerWarnings, type ModelWarning } from '../../core/warnings';
+import type { BumpSpec, RoadSpec } from '../../core/corner-file';
 import type { AnalysisOptions } from './analysis-options';
 
 /** The four corners of a stored revision's setup file, read by core (quantities with units). */
@@ -71,11 +72,124 @@ function stepWindowOf(steps: readonly StepResponse[]): number {
   return Math.min(5, Math.max(1.5, 1.2 * slowest));
 }
 
+/** One corner's linear-model results, SI, with its warnings in each unit system. */
+export type CornerLinear = Pick<
+  CornerResult,
+  'position' | 'figures' | 'modes' | 'step' | 'randomRoad' | 'frf'
+> & {
+  warnings: Record<UnitSystem, ModelWarning[]>;
+};
+
+/** One corner's nonlinear bump, SI, with its warnings in each unit system. */
+export type CornerEvent = Pick<CornerResult, 'bump' | 'bumpHistory'> & {
+  warnings: Record<UnitSystem, ModelWarning[]>;
+};
+
+/** The linear model's results of a setup on a road: they change with the road, never with the bump. */
+export type AnalysisLinear = {
+  road: RoadSpec;
+  corners: Record<CornerPosition, CornerLinear & { stepHistory: ResponseHistory }>;
+  stepWindow: number;
+};
+
+/** The nonlinear bump's results of a setup: they change with the bump, never with the road. */
+export type AnalysisEvents = { bump: BumpSpec; corners: Record<CornerPosition, CornerEvent> };
+
+const FRF_GRID = () => frequencyResponseGrid(FRF_RANGE.low, FRF_RANGE.high, FRF_RANGE.perDecade);
+
+/**
+ * One corner on the linear model: ride figures, modes, the 10 mm step, the frequency response
+ * at `frequencies` and the random-road RMS figures, with their warnings.
+ * @throws InputError naming the corner's field when it is not one a car could have.
+ */
+export function cornerLinearAnalyze(
+  position: CornerPosition,
+  corner: CornerInput,
+  road: RoadSpec,
+  frequencies: readonly number[] = FRF_GRID(),
+): CornerLinear {
+  // Corners read from a file are checked already; one handed over otherwise is checked here.
+  cornerValidate(corner, `corners.${position}.corner`);
+  const linear = cornerAnalyze({ name: position, corner, road }, { frequencies });
+  const warningsIn = (units: UnitSystem) => cornerWarnings(linear.figures, linear.modes, linear.step, units);
+  return {
+    position,
+    figures: linear.figures,
+    modes: linear.modes,
+    step: linear.step,
+    randomRoad: linear.randomRoad as RandomRoadResponse,
+    frf: linear.frf,
+    // Both systems now, so the units switch rewrites the words without running anything again.
+    warnings: { si: warningsIn('si'), us: warningsIn('us') },
+  };
+}
+
+/**
+ * The linear step's histories of all four corners on one window (the slowest corner's, see
+ * stepWindowOf), added to their linear results.
+ */
+export function analysisLinearOf(
+  corners: Record<CornerPosition, CornerInput>,
+  road: RoadSpec,
+  linear: Record<CornerPosition, CornerLinear>,
+): AnalysisLinear {
+  const stepWindow = stepWindowOf(CORNER_POSITIONS.map((p) => linear[p].step));
+  const out = {} as AnalysisLinear['corners'];
+  for (const p of CORNER_POSITIONS) {
+    // The linear model's travel is zu − zs, compression positive, as the event's.
+    const s = stepResponseHistory(cornerQuarterCar(corners[p]), stepWindow, HISTORY_POINTS);
+    out[p] = {
+      ...linear[p],
+      stepHistory: { time: s.time, bodyAccel: s.bodyAccel, travel: s.travel, tireLoad: s.tireLoad },
+    };
+  }
+  return { road, corners: out, stepWindow };
+}
+
+/**
+ * One corner over the bump on the nonlinear quarter car: its peak figures and history, with
+ * the event's warnings.
+ */
+export function cornerEventAnalyze(
+  position: CornerPosition,
+  corner: CornerInput,
+  bump: BumpSpec,
+): CornerEvent {
+  cornerValidate(corner, `corners.${position}.corner`);
+  const event = eventBump(bump);
+  const sim = eventSimulate(corner, event, { historyPoints: HISTORY_POINTS });
+  const h = sim.history;
+  if (!h) throw new Error('the simulation returned no history');
+  const warningsIn = (units: UnitSystem) => eventWarnings(corner, event, sim.metrics, units);
+  return {
+    bump: sim.metrics,
+    bumpHistory: { time: h.time, bodyAccel: h.bodyAccel, travel: h.travel, tireLoad: h.tireLoad },
+    warnings: { si: warningsIn('si'), us: warningsIn('us') },
+  };
+}
+
+/** The screen's whole result from its two parts: the linear model's on a road, the bump's. */
+export function analysisResultOf(linear: AnalysisLinear, events: AnalysisEvents): AnalysisResult {
+  const corners = {} as Record<CornerPosition, CornerResult>;
+  for (const p of CORNER_POSITIONS) {
+    const l = linear.corners[p];
+    const e = events.corners[p];
+    corners[p] = {
+      ...l,
+      bump: e.bump,
+      bumpHistory: e.bumpHistory,
+      warnings: { si: [...l.warnings.si, ...e.warnings.si], us: [...l.warnings.us, ...e.warnings.us] },
+    };
+  }
+  return { options: { road: linear.road, bump: events.bump }, corners, stepWindow: linear.stepWindow };
+}
+
 /**
  * The whole analysis of one setup, corner by corner, by core: ride figures, modes, the linear
  * 10 mm step with its history, the frequency response on a log grid, the random-road RMS
  * figures and the bump on the nonlinear quarter car with its history, with every warning.
- * `progress` is told after each corner (fraction done, what comes next).
+ * `progress` is told after each corner (fraction done, what comes next). The page works the
+ * linear part and the bump out apart (analysis-request.ts), each when its own input changes.
  * @throws InputError naming the corner's field when a corner is not one a car could have.
  */
 export function setupAnalyze(
@@ -83,46 +197,19 @@ export function setupAnalyze(
   options: AnalysisOptions,
   progress?: (fraction: number, stage: string) => void,
 ): AnalysisResult {
-  const frequencies = frequencyResponseGrid(FRF_RANGE.low, FRF_RANGE.high, FRF_RANGE.perDecade);
-  const partial = {} as Record<CornerPosition, Omit<CornerResult, 'stepHistory'>>;
+  const frequencies = FRF_GRID();
+  const linear = {} as Record<CornerPosition, CornerLinear>;
+  const events = {} as Record<CornerPosition, CornerEvent>;
   CORNER_POSITIONS.forEach((p, i) => {
     progress?.(i / (CORNER_POSITIONS.length + 1), `${p}: figures, random road and the bump`);
-    const corner = corners[p];
-    // Corners read from a file are checked already; one handed over otherwise is checked here.
-    cornerValidate(corner, `corners.${p}.corner`);
-    const linear = cornerAnalyze({ name: p, corner, road: options.road }, { frequencies });
-    const event = eventBump(options.bump);
-    const sim = eventSimulate(corner, event, { historyPoints: HISTORY_POINTS });
-    const h = sim.history;
-    if (!h) throw new Error('the simulation returned no history');
-    const warningsIn = (units: UnitSystem) => [
-      ...cornerWarnings(linear.figures, linear.modes, linear.step, units),
-      ...eventWarnings(corner, event, sim.metrics, units),
-    ];
-    partial[p] = {
-      position: p,
-      figures: linear.figures,
-      modes: linear.modes,
-      step: linear.step,
-      randomRoad: linear.randomRoad as RandomRoadResponse,
-      bump: sim.metrics,
-      // Both systems now, so the units switch rewrites the words without running anything again.
-      warnings: { si: warningsIn('si'), us: warningsIn('us') },
-      bumpHistory: { time: h.time, bodyAccel: h.bodyAccel, travel: h.travel, tireLoad: h.tireLoad },
-      frf: linear.frf,
-    };
+    linear[p] = cornerLinearAnalyze(p, corners[p], options.road, frequencies);
+    events[p] = cornerEventAnalyze(p, corners[p], options.bump);
   });
   progress?.(CORNER_POSITIONS.length / (CORNER_POSITIONS.length + 1), 'step responses');
-  const stepWindow = stepWindowOf(CORNER_POSITIONS.map((p) => partial[p].step));
-  const out = {} as Record<CornerPosition, CornerResult>;
-  for (const p of CORNER_POSITIONS) {
-    // The linear model's travel is zu − zs, compression positive, as the event's.
-    const s = stepResponseHistory(cornerQuarterCar(corners[p]), stepWindow, HISTORY_POINTS);
-    out[p] = {
-      ...partial[p],
-      stepHistory: { time: s.time, bodyAccel: s.bodyAccel, travel: s.travel, tireLoad: s.tireLoad },
-    };
-  }
+  const result = analysisResultOf(analysisLinearOf(corners, options.road, linear), {
+    bump: options.bump,
+    corners: events,
+  });
   progress?.(1, 'done');
-  return { options, corners: out, stepWindow };
+  return result;
 }

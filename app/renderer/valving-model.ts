@@ -202,3 +202,48 @@ export function targetsChanged(
   }
   return targets;
 }
+
+type MapAxis = ValvingMap['axes'][number];
+
+/** A heat map's grid: each cell where its clicks put it, null where the map has none. */
+export type HeatMapGrid = {
+  rows: MapAxis;
+  cols: MapAxis | null;
+  /** The settings of any further adjusters the grid is drawn at (one slice of the map). */
+  at: Record<string, number>;
+  cells: (MapCell | null)[][];
+};
+
+/**
+ * The map's cells laid on a grid, rows the first adjuster's clicks and columns the second's:
+ * each cell in the row and column of its own clicks, so that a map measured at only some
+ * combinations (bump 6 / rebound 6 and 12 / 12) leaves the others empty rather than shifting
+ * cells along. A map with more adjusters is drawn at one setting of the rest: `at`'s, or the
+ * first cell's.
+ */
+export function heatMapGrid(
+  map: Pick<ValvingMap, 'axes' | 'cells'>,
+  at: Record<string, number> = {},
+): HeatMapGrid | null {
+  const [rows, cols, ...rest] = map.axes;
+  if (!rows) return null;
+  const first = map.cells[0]?.clicks;
+  const slice: Record<string, number> = {};
+  for (const axis of rest) {
+    const v = at[axis.adjuster] ?? first?.[axis.adjuster] ?? axis.clicks[0];
+    if (v !== undefined) slice[axis.adjuster] = v;
+  }
+  const inSlice = (c: MapCell) => rest.every((axis) => c.clicks[axis.adjuster] === slice[axis.adjuster]);
+  const cells = rows.clicks.map((r) =>
+    (cols?.clicks ?? [null]).map(
+      (k) =>
+        map.cells.find(
+          (c) =>
+            c.clicks[rows.adjuster] === r &&
+            (cols === undefined || c.clicks[cols.adjuster] === k) &&
+            inSlice(c),
+        ) ?? null,
+    ),
+  );
+  return { rows, cols: cols ?? null, at: slice, cells };
+}

@@ -1,9 +1,11 @@
+import { useState } from 'react';
 import type { UnitSystem } from '../../../../core/units';
 import {
   ADJUSTER_WORDS,
   MAP_FIGURES,
   bandOf,
   clicksText,
+  heatMapGrid,
   type MapFigure,
   type ValvingMap,
 } from '../../valving-model';
@@ -16,67 +18,89 @@ export function HeatMap(props: {
   band?: { low: number | null; high: number | null };
 }) {
   const { map, figure, units } = props;
-  const [rows, cols] = map.axes;
-  const values = map.cells.map(figure.value).filter((v): v is number => v !== null);
+  const [at, setAt] = useState<Record<string, number>>({});
+  const grid = heatMapGrid(map, at);
+  if (!grid) return null;
+  const { rows, cols } = grid;
+  const values = grid.cells
+    .flat()
+    .map((c) => (c ? figure.value(c) : null))
+    .filter((v): v is number => v !== null);
   const lo = Math.min(...values);
   const hi = Math.max(...values);
-  if (!rows) return null;
-  const cellAt = (i: number, j: number) => map.cells[cols ? i * cols.clicks.length + j : i];
   const shade = (v: number) => {
     // Light to mid blue with black text throughout: the number is printed, the shade only helps.
     const t = hi > lo ? (v - lo) / (hi - lo) : 0.5;
     return `hsl(215 70% ${96 - 38 * t}%)`;
   };
+  const slice = Object.entries(grid.at);
   return (
-    <table
-      className="figures heat-map"
-      aria-label={`${figure.label} over the clicks at ${map.position}`}
-      data-testid="heat-map"
-      data-vehicle={map.vehicle.name}
-      data-revision={map.revision}
-    >
-      <caption style={{ textAlign: 'left', fontWeight: 700 }}>
-        {figure.label} at {map.position} with {map.damper}: rows {ADJUSTER_WORDS[rows.adjuster]} clicks
-        {cols ? `, columns ${ADJUSTER_WORDS[cols.adjuster]} clicks` : ''}.
-        {figure.target ? ' ✓ inside the target band;' : ''} i interpolated; — none.
-      </caption>
-      <thead>
-        <tr>
-          <th scope="col">
-            {ADJUSTER_WORDS[rows.adjuster]} \ {cols ? ADJUSTER_WORDS[cols.adjuster] : ''}
-          </th>
-          {(cols?.clicks ?? [0]).map((c) => (
-            <th scope="col" key={c}>
-              {cols ? c : ''}
+    <>
+      {map.axes.slice(2).map((axis) => (
+        <label key={axis.adjuster} className="toolbar">
+          {ADJUSTER_WORDS[axis.adjuster]} clicks{' '}
+          <select
+            value={grid.at[axis.adjuster]}
+            onChange={(e) => setAt({ ...at, [axis.adjuster]: Number(e.target.value) })}
+          >
+            {axis.clicks.map((c) => (
+              <option key={c} value={c}>
+                {c}
+              </option>
+            ))}
+          </select>
+        </label>
+      ))}
+      <table
+        className="figures heat-map"
+        aria-label={`${figure.label} over the clicks at ${map.position}`}
+        data-testid="heat-map"
+        data-vehicle={map.vehicle.name}
+        data-revision={map.revision}
+      >
+        <caption style={{ textAlign: 'left', fontWeight: 700 }}>
+          {figure.label} at {map.position} with {map.damper}: rows {ADJUSTER_WORDS[rows.adjuster]} clicks
+          {cols ? `, columns ${ADJUSTER_WORDS[cols.adjuster]} clicks` : ''}
+          {slice.length ? `, at ${slice.map(([a, v]) => `${ADJUSTER_WORDS[a] ?? a} ${v}`).join(', ')}` : ''}.
+          {figure.target ? ' ✓ inside the target band;' : ''} i interpolated; — none.
+        </caption>
+        <thead>
+          <tr>
+            <th scope="col">
+              {ADJUSTER_WORDS[rows.adjuster]} \ {cols ? ADJUSTER_WORDS[cols.adjuster] : ''}
             </th>
-          ))}
-        </tr>
-      </thead>
-      <tbody>
-        {rows.clicks.map((r, i) => (
-          <tr key={r}>
-            <th scope="row">{r}</th>
-            {(cols?.clicks ?? [0]).map((_, j) => {
-              const cell = cellAt(i, j);
-              const v = cell ? figure.value(cell) : null;
-              if (!cell || v === null) return <td key={j}>—</td>;
-              const inBand = bandOf(props.band, v);
-              return (
-                <td
-                  key={j}
-                  style={{ background: shade(v), textAlign: 'center' }}
-                  title={clicksText(cell.clicks)}
-                >
-                  {figure.text(v, units)}
-                  {inBand ? ' ✓' : ''}
-                  {cell.source === 'interpolated' ? ' i' : ''}
-                </td>
-              );
-            })}
+            {(cols?.clicks ?? [0]).map((c) => (
+              <th scope="col" key={c}>
+                {cols ? c : ''}
+              </th>
+            ))}
           </tr>
-        ))}
-      </tbody>
-    </table>
+        </thead>
+        <tbody>
+          {rows.clicks.map((r, i) => (
+            <tr key={r}>
+              <th scope="row">{r}</th>
+              {(grid.cells[i] ?? []).map((cell, j) => {
+                const v = cell ? figure.value(cell) : null;
+                if (!cell || v === null) return <td key={j}>—</td>;
+                const inBand = bandOf(props.band, v);
+                return (
+                  <td
+                    key={j}
+                    style={{ background: shade(v), textAlign: 'center' }}
+                    title={clicksText(cell.clicks)}
+                  >
+                    {figure.text(v, units)}
+                    {inBand ? ' ✓' : ''}
+                    {cell.source === 'interpolated' ? ' i' : ''}
+                  </td>
+                );
+              })}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </>
   );
 }
 

@@ -1,0 +1,104 @@
+import type { Page } from 'playwright-core';
+
+/**
+ * Timing of an edit in the page, by the browser's own clocks: a mark at each `input` event of
+ * the edit, the moment a watched table cell shows another text (a MutationObserver, then the next
+ * animation frame, so the figure is painted), and every long task (> 50 ms on the page's
+ * thread, PerformanceObserver 'longtask') in between.
+ */
+export type EditTiming = {
+  /** Edit to each watched figure on screen (ms), by the watch's name; null when it never changed. */
+  shown: Record<string, number | null>;
+  /** Long tasks from the edit to the last figure: count, total and longest (ms). */
+  longTasks: { count: number; totalMs: number; longestMs: number };
+};
+
+/** Installs the long-task observer and the edit mark; call before the page loads. */
+export async function editTimingInstall(page: Page): Promise<void> {
+  await page.addInitScript(() => {
+    const w = window as unknown as { __editTiming: { longTasks: { start: number; duration: number }[] } };
+    w.__editTiming = { longTasks: [] };
+    new PerformanceObserver((list) => {
+      for (const e of list.getEntries())
+        w.__editTiming.longTasks.push({ start: e.startTime, duration: e.duration });
+    }).observe({ type: 'longtask', buffered: true });
+    document.addEventListener('input', () => performance.mark('rideledger-edit'), true);
+    document.addEventListener('change', () => performance.mark('rideledger-edit'), true);
+  });
+}
+
+/**
+ * Times `edit` (a fill, a selection or typing) until each of `watch`'s cells (CSS selectors)
+ * shows a text other than before, or `timeoutMs` passes.
+ */
+export async function editTime(
+  page: Page,
+  watch: Record<string, string>,
+  edit: () => Promise<void>,
+  timeoutMs = 15_000,
+): Promise<EditTiming> {
+  await page.evaluate(
+    ({ watch, timeoutMs }) => {
+      performance.clearMarks('rideledger-edit');
+      const w = window as unknown as {
+        __editTiming: { longTasks: { start: number; duration: number }[]; done?: Promise<unknown> };
+      };
+      const before = Object.fromEntries(
+        Object.entries(watch).map(([k, sel]) => [k, document.querySelector(sel)?.textContent ?? null]),
+      );
+      const waits = Object.entries(watch).map(
+        ([k, sel]) =>
+          new Promise<[string, number | null]>((done) => {
+            const timer = setTimeout(() => {
+              observer.disconnect();
+              done([k, null]);
+            }, timeoutMs);
+            const check = () => {
+              const text = document.querySelector(sel)?.textContent ?? null;
+              if (text === null || text === before[k]) return;
+              observer.disconnect();
+              clearTimeout(timer);
+              requestAnimationFrame(() => done([k, performance.now()]));
+            };
+            const observer = new MutationObserver(check);
+            observer.observe(document.body, { subtree: true, childList: true, characterData: true });
+          }),
+      );
+      w.__editTiming.done = Promise.all(waits);
+    },
+    { watch, timeoutMs },
+  );
+  await edit();
+  return page.evaluate(async () => {
+    const w = window as unknown as {
+      __editTiming: {
+        longTasks: { start: number; duration: number }[];
+        done: Promise<[string, number | null][]>;
+      };
+    };
+    const seen = await w.__editTiming.done;
+    const marks = performance.getEntriesByName('rideledger-edit', 'mark');
+    // Figures are timed from the last keystroke (the edit that completes the value); long tasks
+    // are counted from the first, so typing's own are in.
+    const first = marks[0]?.startTime ?? 0;
+    const start = marks[marks.length - 1]?.startTime ?? 0;
+    const end = Math.max(start, ...seen.map(([, t]) => t ?? 0));
+    const tasks = w.__editTiming.longTasks.filter((t) => t.start + t.duration >= first && t.start <= end);
+    return {
+      shown: Object.fromEntries(seen.map(([k, t]) => [k, t === null ? null : t - start])),
+      longTasks: {
+        count: tasks.length,
+        totalMs: tasks.reduce((s, t) => s + t.duration, 0),
+        longestMs: Math.max(0, ...tasks.map((t) => t.duration)),
+      },
+    };
+  });
+}
+
+/** One line of an edit's timing, for a log. */
+export function editTimingText(what: string, t: EditTiming): string {
+  const shown = Object.entries(t.shown)
+    .map(([k, ms]) => `${k} ${ms === null ? 'never' : `${ms.toFixed(0)} ms`}`)
+    .join(', ');
+  return `${what}: ${shown}; long tasks ${t.longTasks.count} (${t.longTasks.totalMs.toFixed(0)} ms, longest ${t.longTasks.longestMs.toFixed(0)} ms)`;
+}
