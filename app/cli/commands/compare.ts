@@ -1,13 +1,19 @@
 import { clickSettingsText } from '../../../core/click-settings';
 import { numberFormat, type UnitSystem } from '../../../core/units';
+import {
+  VALVING_VERDICT_RULE,
+  valvingHeadlineVerdict,
+  valvingScoreVerdict,
+} from '../../../core/valving-compare';
 import { VALVING_HEADLINE_KEYS, VALVING_HEADLINES } from '../../../core/valving-rank';
+import type { ValvingTargets } from '../../../core/valving-targets';
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
 import { commandArgsParse, helpShown, jsonText } from '../command-args';
 import { revisionPairOf } from '../revision-ref';
 import { withStore } from '../store-session';
-import { tableFormat } from '../table';
+import { tableFormat, textWrap } from '../table';
 import {
   valvingBalanceLines,
   valvingCautionLines,
@@ -41,6 +47,7 @@ function compareHuman(out: CompareOut, system: UnitSystem): string {
   const lines = [
     `Track-day sheet: ${out.a.vehicle}@${out.a.revision} "${out.a.name}" → ${out.b.vehicle}@${out.b.revision} "${out.b.name}"`,
     ...valvingJudgedLines(out, system),
+    textWrap(`Verdicts: ${VALVING_VERDICT_RULE}`, 96, '    ').replace(/^ {4}/, '  '),
     '',
   ];
   for (const c of out.corners) {
@@ -49,17 +56,19 @@ function compareHuman(out: CompareOut, system: UnitSystem): string {
     lines.push(
       `${c.position}: ${damper(c.a)} → ${damper(c.b)}`,
       tableFormat([
-        ['figure', tag(out.a), tag(out.b), 'change'],
+        ['figure', tag(out.a), tag(out.b), 'change', 'verdict'],
         ...VALVING_HEADLINE_KEYS.map((k) => [
           VALVING_HEADLINES[k].label,
           valvingHeadlineText(k, c.a.headline[k], system),
           valvingHeadlineText(k, c.b.headline[k], system),
           valvingHeadlineText(k, c.change[k], system, true),
+          valvingHeadlineVerdict(k, c.a.headline[k], c.b.headline[k], out.targets as ValvingTargets) ?? '',
         ]),
         [
           'targets met',
           `${c.a.score.met} of ${c.a.score.met + c.a.score.missed}`,
           `${c.b.score.met} of ${c.b.score.met + c.b.score.missed}`,
+          '',
           '',
         ],
         [
@@ -67,6 +76,7 @@ function compareHuman(out: CompareOut, system: UnitSystem): string {
           numberFormat(c.a.score.score, 3),
           numberFormat(c.b.score.score, 3),
           valvingValueText(c.b.score.score - c.a.score.score, null, system, true),
+          valvingScoreVerdict(c.a.score.score, c.b.score.score),
         ],
       ]),
     );

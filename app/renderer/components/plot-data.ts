@@ -4,6 +4,7 @@ import { csvFormat } from '../csv';
  * One series of a plot: a curve, or measured points drawn as markers (`points`). `style`
  * picks the colour, dash and marker (by default the series' place in the list), so that a
  * run's points and its fitted curve can share a colour and differ by line against marker.
+ * `width` draws a curve wider, so that one drawn over it in the same place still shows.
  */
 export type PlotSeries = {
   name: string;
@@ -11,6 +12,8 @@ export type PlotSeries = {
   y: ArrayLike<number>;
   points?: boolean;
   style?: number;
+  /** Line width (px), 2 unless given: curves that may coincide are drawn widest first. */
+  width?: number;
 };
 
 /** Ticks at 1, 2 and 5 × 10ⁿ within [lo, hi], for a log axis. */

@@ -39,7 +39,13 @@ export function LinePlot(props: {
       if (Number.isFinite(x) && Number.isFinite(y) && (!props.xLog || x > 0) && (!props.yLog || y > 0))
         points.push({ x, y });
     }
-    return { name: s.name, points, asPoints: s.points === true, style: seriesStyle(s.style ?? i) };
+    return {
+      name: s.name,
+      points,
+      asPoints: s.points === true,
+      style: seriesStyle(s.style ?? i),
+      width: s.width ?? 2,
+    };
   });
   const xs = data.flatMap((d) => d.points.map((p) => p.x));
   const ys = data.flatMap((d) => d.points.map((p) => p.y));
@@ -131,7 +137,7 @@ export function LinePlot(props: {
                 dataKey="y"
                 stroke={d.style.colour}
                 strokeDasharray={d.style.dash}
-                strokeWidth={2}
+                strokeWidth={d.width}
                 dot={false}
                 isAnimationActive={false}
               />

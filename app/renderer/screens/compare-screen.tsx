@@ -12,7 +12,12 @@ import {
   numberFormat,
   type UnitSystem,
 } from '../../../core/units';
-import { valvingHeadlineVerdict, type ValvingVerdict } from '../../../core/valving-compare';
+import {
+  VALVING_VERDICT_RULE,
+  valvingHeadlineVerdict,
+  valvingScoreVerdict,
+  type ValvingVerdict,
+} from '../../../core/valving-compare';
 import {
   VALVING_HEADLINE_KEYS,
   VALVING_HEADLINES,
@@ -43,6 +48,9 @@ function valueText(key: ValvingHeadlineKey, v: number | null, units: UnitSystem)
     ? quantityFormat(v, kind, units, kind === 'length' ? { decimals: units === 'si' ? 2 : 3 } : {})
     : numberFormat(v, 3);
 }
+
+/** Line widths of the compared revisions' curves, the baseline widest. */
+const CURVE_WIDTHS = [6, 3.5, 2, 1.5];
 
 const VERDICT_TEXT: Record<Exclude<ValvingVerdict, null>, string> = {
   better: '▲ better',
@@ -114,29 +122,34 @@ export function CompareScreen() {
     const frf = { accel: [] as PlotSeries[], tire: [] as PlotSeries[], travel: [] as PlotSeries[] };
     const bump = { accel: [] as PlotSeries[], travel: [] as PlotSeries[], tire: [] as PlotSeries[] };
     const event = eventBump(scenario.bump);
-    for (const l of loaded) {
+    for (const [i, l] of loaded.entries()) {
       const corner = l.sheet.corners[position].analysis;
       const q = cornerQuarterCar(corner);
       const m = freqs.map((f) => frequencyResponseMagnitudeAt(q, f));
+      // Widest first, each later one inside it with its own dash: identical curves both show.
+      const width = CURVE_WIDTHS[i] ?? 1.5;
       const name = labelOf(l);
-      frf.accel.push({ name, x: freqs, y: m.map((r) => r.bodyAccel / perMetre) });
+      frf.accel.push({ name, x: freqs, width, y: m.map((r) => r.bodyAccel / perMetre) });
       frf.tire.push({
         name,
         x: freqs,
+        width,
         y: m.map((r) => quantityToDisplay(r.tireLoad, 'force', app.units) / perMetre),
       });
-      frf.travel.push({ name, x: freqs, y: m.map((r) => r.travel) });
+      frf.travel.push({ name, x: freqs, width, y: m.map((r) => r.travel) });
       const h = eventSimulate(corner, event, { historyPoints: 600 }).history;
       if (h) {
-        bump.accel.push({ name, x: h.time, y: h.bodyAccel });
+        bump.accel.push({ name, x: h.time, width, y: h.bodyAccel });
         bump.travel.push({
           name,
           x: h.time,
+          width,
           y: Array.from(h.travel, (v) => quantityToDisplay(v, 'length', app.units)),
         });
         bump.tire.push({
           name,
           x: h.time,
+          width,
           y: Array.from(h.tireLoad, (v) => quantityToDisplay(v, 'force', app.units)),
         });
       }
@@ -164,6 +177,23 @@ export function CompareScreen() {
       return { key, base, others };
     });
   }, [compared, position, targets]);
+  const scores = useMemo(() => {
+    const side = (c: Compared, s: 'a' | 'b') => c.corners.find((x) => x.position === position)?.[s].score;
+    const base = compared[0] ? side(compared[0], 'a') : undefined;
+    return base
+      ? {
+          base,
+          others: compared.map((c) => {
+            const s = side(c, 'b');
+            return s ? { s, verdict: valvingScoreVerdict(base.score, s.score) } : null;
+          }),
+        }
+      : null;
+  }, [compared, position]);
+  // Revisions whose figures at this corner are the baseline's, to the last digit.
+  const sameAsBaseline = rows.length
+    ? loaded.slice(1).filter((_, i) => rows.every((r) => r.others[i]?.v === r.base))
+    : [];
 
   return (
     <section aria-label="Compare setups">
@@ -268,8 +298,55 @@ export function CompareScreen() {
                 })}
               </tr>
             ))}
+            {scores ? (
+              <>
+                <tr>
+                  <th scope="row" style={{ textAlign: 'left' }}>
+                    Targets met
+                  </th>
+                  <td>
+                    {scores.base.met} of {scores.base.met + scores.base.missed}
+                  </td>
+                  {scores.others.map((o, i) => [
+                    <td key={`v${i}`}>{o ? `${o.s.met} of ${o.s.met + o.s.missed}` : '—'}</td>,
+                    <td key={`d${i}`}>
+                      {o
+                        ? `${o.s.met - scores.base.met >= 0 ? '+' : '−'}${Math.abs(o.s.met - scores.base.met)}`
+                        : '—'}
+                    </td>,
+                    <td key={`j${i}`} />,
+                  ])}
+                </tr>
+                <tr data-figure="score">
+                  <th scope="row" style={{ textAlign: 'left' }}>
+                    Score (0 when every target is met; lower is better)
+                  </th>
+                  <td>{numberFormat(scores.base.score, 3)}</td>
+                  {scores.others.map((o, i) => [
+                    <td key={`v${i}`}>{o ? numberFormat(o.s.score, 3) : '—'}</td>,
+                    <td key={`d${i}`}>
+                      {o
+                        ? `${o.s.score - scores.base.score >= 0 ? '+' : '−'}${numberFormat(Math.abs(o.s.score - scores.base.score), 3)}`
+                        : '—'}
+                    </td>,
+                    <td
+                      key={`j${i}`}
+                      className={o?.verdict === 'better' ? 'better' : o?.verdict === 'worse' ? 'worse' : ''}
+                      data-verdict={o?.verdict ?? ''}
+                    >
+                      {o ? VERDICT_TEXT[o.verdict] : '—'}
+                    </td>,
+                  ])}
+                </tr>
+              </>
+            ) : null}
           </tbody>
         </table>
+      ) : null}
+      {rows.length > 0 && loaded.length >= 2 ? (
+        <p className="muted" data-testid="verdict-rule">
+          <strong>How the verdict is given:</strong> {VALVING_VERDICT_RULE}
+        </p>
       ) : null}
       {compared.length > 0 ? (
         <>
@@ -288,6 +365,15 @@ export function CompareScreen() {
           ))}
           {compared[0] ? <p className="muted">{compared[0].valvingCaution}</p> : null}
         </>
+      ) : null}
+      {plots && loaded.length >= 2 ? (
+        <p className="muted" data-testid="curve-note">
+          Each revision’s curve is drawn over the one before, narrower and with its own dash, so that curves
+          that coincide both show.
+          {sameAsBaseline.length > 0
+            ? ` At ${position}, ${sameAsBaseline.map(labelOf).join(' and ')} give${sameAsBaseline.length === 1 ? 's' : ''} the baseline’s figures exactly: its curves lie inside the baseline’s.`
+            : ''}
+        </p>
       ) : null}
       {plots && loaded.length >= 2 ? (
         <div className="plots">
