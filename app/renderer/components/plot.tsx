@@ -10,7 +10,10 @@ import {
   YAxis,
 } from 'recharts';
 import { PlotFrame, axisLabelX, axisLabelY, seriesStyle, tickText } from './plot-frame';
-import { niceLinearTicks, niceLogTicks, plotCsv, type PlotSeries } from './plot-data';
+import { niceLinearTicks, niceLogTicks, plotCsv, plotPointsThin, type PlotSeries } from './plot-data';
+
+/** Points of a curve drawn at most (the CSV keeps them all): min and max of 120 runs. */
+const CURVE_POINTS_DRAWN = 242;
 
 export { SERIES_STYLES, svgToPng } from './plot-frame';
 export { plotCsv } from './plot-data';
@@ -41,7 +44,8 @@ export function LinePlot(props: {
     }
     return {
       name: s.name,
-      points,
+      // A chart a few hundred pixels wide shows no more than this many points a curve.
+      points: s.points === true ? points : plotPointsThin(points, CURVE_POINTS_DRAWN),
       asPoints: s.points === true,
       style: seriesStyle(s.style ?? i),
       width: s.width ?? 2,
