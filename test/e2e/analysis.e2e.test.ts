@@ -131,7 +131,10 @@ describe.skipIf(!chromium)('Ride figures, in Chromium against the served app', (
     // 100 km/h = 62.1371 mph (NIST SP 811 [pub]), written as a shop does.
     expect(await page.getByLabel('Road speed').inputValue()).toBe('62.1');
     expect(await cell(page, 'bumpMaxCompression', 'FL').innerText()).toMatch(/ in$/);
-    expect(await page.locator('figure[data-plot="bump-travel"]').innerText()).toContain('Travel (in)');
+    // Plots are redrawn one a task after the figures: the axis label follows a moment later.
+    await expect
+      .poll(() => page.locator('figure[data-plot="bump-travel"]').innerText(), { timeout: 30_000 })
+      .toContain('Travel (in)');
     await screenshotSave(page, 'ride-figures-us');
   });
 

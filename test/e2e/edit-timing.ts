@@ -29,7 +29,8 @@ export async function editTimingInstall(page: Page): Promise<void> {
 
 /**
  * Times `edit` (a fill, a selection or typing) until each of `watch`'s cells (CSS selectors)
- * shows a text other than before, or `timeoutMs` passes.
+ * shows a text other than before — or, for "selector ~ words", a text with those words — or
+ * `timeoutMs` passes.
  */
 export async function editTime(
   page: Page,
@@ -44,7 +45,10 @@ export async function editTime(
         __editTiming: { longTasks: { start: number; duration: number }[]; done?: Promise<unknown> };
       };
       const before = Object.fromEntries(
-        Object.entries(watch).map(([k, sel]) => [k, document.querySelector(sel)?.textContent ?? null]),
+        Object.entries(watch).map(([k, sel]) => [
+          k,
+          document.querySelector(sel.split(' ~ ')[0] as string)?.textContent ?? null,
+        ]),
       );
       const waits = Object.entries(watch).map(
         ([k, sel]) =>
@@ -53,9 +57,13 @@ export async function editTime(
               observer.disconnect();
               done([k, null]);
             }, timeoutMs);
+            // "selector ~ words": wait for the cell to read those words (the figures of the final
+            // value of a typed edit), not merely for a change.
+            const [css, words] = sel.split(' ~ ') as [string, string | undefined];
             const check = () => {
-              const text = document.querySelector(sel)?.textContent ?? null;
-              if (text === null || text === before[k]) return;
+              const text = document.querySelector(css)?.textContent ?? null;
+              if (text === null || text === before[k] || (words !== undefined && !text.includes(words)))
+                return;
               observer.disconnect();
               clearTimeout(timer);
               requestAnimationFrame(() => done([k, performance.now()]));
@@ -136,7 +144,8 @@ export async function rideFiguresEditTimings(
   await timed('road speed 90 → 100 km/h', { road: figure('roadBodyAccel') }, () => speed.fill('100'));
   await timed('bump height 25 → 40 mm', { bump: figure('bumpPeakAccel') }, () => height.fill('40'));
   await timed('bump height 40 → 30 mm', { bump: figure('bumpPeakAccel') }, () => height.fill('30'));
-  await timed('road speed typed key by key: 1, 12, 120 km/h', { road: figure('roadBodyAccel') }, async () => {
+  const roadTitle = 'table.analysis-figures tbody[data-group="road"] tr.group-row th ~ at 120.0 km/h';
+  await timed('road speed typed key by key: 1, 12, 120 km/h', { road: roadTitle }, async () => {
     await speed.fill('');
     await speed.pressSequentially('120', { delay: 150 });
   });

@@ -62,8 +62,10 @@ describe.skipIf(!chromium)('heat map, compare and the US sheet, in Chromium', ()
       await page.reload();
       await screenOpen(page, 'Valving');
       await page.getByLabel('Vehicle').selectOption(COUPE);
-      await page.getByLabel('Damper').selectOption('SPARSE-1');
       const map = page.locator('[data-testid="heat-map"][data-vehicle="Millbrook coupe #27"]');
+      // The vehicle's own damper unit is chosen first; then the sparse one.
+      await map.waitFor();
+      await page.getByLabel('Damper').selectOption('SPARSE-1');
       await expect.poll(() => map.locator('caption').innerText()).toMatch(/with SPARSE-1/);
       const cellText = (row: number, col: number) =>
         map.locator(`tbody tr:nth-child(${row}) td:nth-child(${col + 1})`).getAttribute('title');

@@ -19,11 +19,21 @@ import { LinePlot } from '../../components/plot';
  */
 const turns: (() => void)[] = [];
 let turning = false;
+/** While the user types, charts wait: the figures table shows each value, the plots the last. */
+const TYPING_PAUSE_MS = 300;
+let lastKey = -Infinity;
+if (typeof document !== 'undefined')
+  document.addEventListener('keydown', () => (lastKey = performance.now()), { capture: true, passive: true });
 function plotTurnTake(draw: () => void): () => void {
   turns.push(draw);
   if (!turning) {
     turning = true;
     const next = () => {
+      const typing = performance.now() - lastKey;
+      if (typing < TYPING_PAUSE_MS) {
+        setTimeout(next, TYPING_PAUSE_MS - typing);
+        return;
+      }
       const d = turns.shift();
       if (!d) {
         turning = false;
