@@ -9,8 +9,11 @@ import type { Page } from 'playwright-core';
 export type EditTiming = {
   /** Edit to each watched figure on screen (ms), by the watch's name; null when it never changed. */
   shown: Record<string, number | null>;
-  /** Long tasks from the edit to the last figure: count, total and longest (ms). */
-  longTasks: { count: number; totalMs: number; longestMs: number };
+  /**
+   * Long tasks from the edit to the last figure: count, total and longest (ms), and how many
+   * of them fell while keys were still being pressed.
+   */
+  longTasks: { count: number; totalMs: number; longestMs: number; whileTyping: number };
 };
 
 /** Installs the long-task observer and the edit mark; call before the page loads. */
@@ -92,12 +95,15 @@ export async function editTime(
     const start = marks[marks.length - 1]?.startTime ?? 0;
     const end = Math.max(start, ...seen.map(([, t]) => t ?? 0));
     const tasks = w.__editTiming.longTasks.filter((t) => t.start + t.duration >= first && t.start <= end);
+    // While keys are still being pressed (first to last input of a typed edit).
+    const typing = w.__editTiming.longTasks.filter((t) => t.start + t.duration >= first && t.start <= start);
     return {
       shown: Object.fromEntries(seen.map(([k, t]) => [k, t === null ? null : t - start])),
       longTasks: {
         count: tasks.length,
         totalMs: tasks.reduce((s, t) => s + t.duration, 0),
         longestMs: Math.max(0, ...tasks.map((t) => t.duration)),
+        whileTyping: typing.length,
       },
     };
   });
@@ -108,7 +114,7 @@ export function editTimingText(what: string, t: EditTiming): string {
   const shown = Object.entries(t.shown)
     .map(([k, ms]) => `${k} ${ms === null ? 'never' : `${ms.toFixed(0)} ms`}`)
     .join(', ');
-  return `${what}: ${shown}; long tasks ${t.longTasks.count} (${t.longTasks.totalMs.toFixed(0)} ms, longest ${t.longTasks.longestMs.toFixed(0)} ms)`;
+  return `${what}: ${shown}; long tasks ${t.longTasks.count} (${t.longTasks.totalMs.toFixed(0)} ms, longest ${t.longTasks.longestMs.toFixed(0)} ms; ${t.longTasks.whileTyping} while typing)`;
 }
 
 const figure = (key: string, corner = 'FL') =>

@@ -66,7 +66,9 @@ describe.skipIf(!chromium)('heat map, compare and the US sheet, in Chromium', ()
       // The vehicle's own damper unit is chosen first; then the sparse one.
       await map.waitFor();
       await page.getByLabel('Damper').selectOption('SPARSE-1');
-      await expect.poll(() => map.locator('caption').innerText()).toMatch(/with SPARSE-1/);
+      await expect
+        .poll(() => map.locator('caption').innerText(), { timeout: 30_000 })
+        .toMatch(/with SPARSE-1/);
       const cellText = (row: number, col: number) =>
         map.locator(`tbody tr:nth-child(${row}) td:nth-child(${col + 1})`).getAttribute('title');
       // Rows and columns 6 and 12; the measured cells on the diagonal, nothing off it.
