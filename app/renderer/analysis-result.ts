@@ -1,15 +1,25 @@
-import { cornerQuarterCar, cornerValidate, type CornerFigures, type CornerInput } from '../../core/corner';
-import { cornerAnalyze } from '../../core/corner-analysis';
+import {
+  cornerQuarterCar,
+  cornerRideFigures,
+  cornerValidate,
+  type CornerFigures,
+  type CornerInput,
+  type QuarterCarLinear,
+} from '../../core/corner';
 import { eventBump } from '../../core/event';
 import { eventWarnings } from '../../core/event-warnings';
-import { frequencyResponseGrid, type FrequencyResponseMagnitude } from '../../core/frequency-response';
+import {
+  frequencyResponseGrid,
+  frequencyResponseMagnitudeAt,
+  type FrequencyResponseMagnitude,
+} from '../../core/frequency-response';
 import type { EventMetrics } from '../../core/metrics';
-import type { Modes } from '../../core/modal';
-import type { RandomRoadResponse } from '../../core/random-road';
+import { modesOf, type Modes } from '../../core/modal';
+import { randomRoadResponse, type RandomRoadResponse } from '../../core/random-road';
 import { setupFileParse } from '../../core/setup-file';
 import { CORNER_POSITIONS, type CornerPosition } from '../../core/setup-sheet';
 import { eventSimulate } from '../../core/simulate';
-import { stepResponseHistory, type StepResponse } from '../../core/step-response';
+import { stepResponseHistory, stepResponseLinear, type StepResponse } from '../../core/step-response';
 import type { UnitSystem } from '../../core/units';
 import { cornerWarnings, type ModelWarning } from '../../core/warnings';
 import type { BumpSpec, RoadSpec } from '../../core/corner-file';
@@ -97,9 +107,25 @@ export type AnalysisEvents = { bump: BumpSpec; corners: Record<CornerPosition, C
 
 const FRF_GRID = () => frequencyResponseGrid(FRF_RANGE.low, FRF_RANGE.high, FRF_RANGE.perDecade);
 
+/** Step responses already worked out, by corner: the step does not change with the road. */
+const STEPS = new Map<string, StepResponse>();
+const STEPS_KEPT = 64;
+function stepOf(corner: CornerInput, q: QuarterCarLinear): StepResponse {
+  const key = JSON.stringify(corner);
+  let step = STEPS.get(key);
+  if (!step) {
+    step = stepResponseLinear(q);
+    STEPS.set(key, step);
+    if (STEPS.size > STEPS_KEPT) STEPS.delete(STEPS.keys().next().value as string);
+  }
+  return step;
+}
+
 /**
- * One corner on the linear model: ride figures, modes, the 10 mm step, the frequency response
- * at `frequencies` and the random-road RMS figures, with their warnings.
+ * One corner on the linear model, as core's cornerAnalyze composes it: ride figures, modes,
+ * the 10 mm step, the frequency response at `frequencies` and the random-road RMS figures, with
+ * their warnings. The step, the slowest of them and the same on every road, is worked out once
+ * a corner, so that a new road costs only the random-road integral.
  * @throws InputError naming the corner's field when it is not one a car could have.
  */
 export function cornerLinearAnalyze(
@@ -110,15 +136,18 @@ export function cornerLinearAnalyze(
 ): CornerLinear {
   // Corners read from a file are checked already; one handed over otherwise is checked here.
   cornerValidate(corner, `corners.${position}.corner`);
-  const linear = cornerAnalyze({ name: position, corner, road }, { frequencies });
-  const warningsIn = (units: UnitSystem) => cornerWarnings(linear.figures, linear.modes, linear.step, units);
+  const figures = cornerRideFigures(corner);
+  const q = cornerQuarterCar(corner);
+  const modes = modesOf(q);
+  const step = stepOf(corner, q);
+  const warningsIn = (units: UnitSystem) => cornerWarnings(figures, modes, step, units);
   return {
     position,
-    figures: linear.figures,
-    modes: linear.modes,
-    step: linear.step,
-    randomRoad: linear.randomRoad as RandomRoadResponse,
-    frf: linear.frf,
+    figures,
+    modes,
+    step,
+    randomRoad: randomRoadResponse(q, road),
+    frf: frequencies.map((f) => frequencyResponseMagnitudeAt(q, f)),
     // Both systems now, so the units switch rewrites the words without running anything again.
     warnings: { si: warningsIn('si'), us: warningsIn('us') },
   };

@@ -18,6 +18,8 @@ export type EditTiming = {
 
 /** Installs the long-task observer and the edit mark; call before the page loads. */
 export async function editTimingInstall(page: Page): Promise<void> {
+  // Run through tsx (npm run bench:page), functions sent to the page carry esbuild's name helper.
+  await page.addInitScript({ content: 'window.__name = (f) => f;' });
   await page.addInitScript(() => {
     const w = window as unknown as { __editTiming: { longTasks: { start: number; duration: number }[] } };
     w.__editTiming = { longTasks: [] };

@@ -9,7 +9,14 @@ import {
   type AnalysisReply,
   type AnalysisRequest,
 } from '../../app/renderer/analysis-request';
-import { analysisResultOf, setupAnalyze } from '../../app/renderer/analysis-result';
+import {
+  FRF_RANGE,
+  analysisResultOf,
+  cornerLinearAnalyze,
+  setupAnalyze,
+} from '../../app/renderer/analysis-result';
+import { cornerAnalyze } from '../../core/corner-analysis';
+import { frequencyResponseGrid } from '../../core/frequency-response';
 import { AnalysisCancelled, analysisRunner, type AnalysisWorker } from '../../app/renderer/analysis-run';
 import { WORKED_CORNER, fourOf } from './worked-corner';
 
@@ -149,6 +156,29 @@ describe('analysisRunner', () => {
       'corners.RL.corner.cornerMass: corner mass must be a finite number (got NaN)',
     );
     await expect(run({ ...EVENTS, corners: bad })).rejects.toThrow(/^corners\.RL\.corner\.cornerMass: /);
+  });
+});
+
+describe('cornerLinearAnalyze', () => {
+  it('gives what core’s cornerAnalyze gives, and works the step out once a corner, whatever the road', () => {
+    const a = cornerLinearAnalyze('FL', CORNER, OPTIONS.road);
+    const core = cornerAnalyze(
+      { name: 'FL', corner: CORNER, road: OPTIONS.road },
+      { frequencies: frequencyResponseGrid(FRF_RANGE.low, FRF_RANGE.high, FRF_RANGE.perDecade) },
+    );
+    expect(a.figures).toEqual(core.figures);
+    expect(a.modes).toEqual(core.modes);
+    expect(a.step).toEqual(core.step);
+    expect(a.frf).toEqual(core.frf);
+    expect(a.randomRoad).toEqual(core.randomRoad);
+    expect(a.warnings.si).toEqual(core.warnings);
+    // Twice the speed: the same step (not worked out again), another random road.
+    const b = cornerLinearAnalyze('FL', CORNER, { ...OPTIONS.road, speed: 2 * OPTIONS.road.speed });
+    expect(b.step).toBe(a.step);
+    expect(b.randomRoad.bodyAccelRms).not.toBe(a.randomRoad.bodyAccelRms);
+    // Another corner gets its own.
+    const stiffer = cornerLinearAnalyze('FL', { ...CORNER, springRate: 2 * CORNER.springRate }, OPTIONS.road);
+    expect(stiffer.step).not.toBe(a.step);
   });
 });
 
