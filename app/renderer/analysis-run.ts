@@ -1,7 +1,4 @@
-import type { CornerInput } from '../../core/corner/corner';
-import type { CornerPosition } from '../../core/setup/setup-sheet';
-import type { AnalysisOptions, AnalysisResult } from './analysis-model';
-import type { AnalysisReply, AnalysisRequest } from './analysis-request';
+import type { AnalysisJob, AnalysisJobResult, AnalysisReply, AnalysisRequest } from './analysis-request';
 
 /** The analysis was stopped by the user (or replaced by a newer one) before it finished. */
 export class AnalysisCancelled extends Error {
@@ -21,33 +18,32 @@ export type AnalysisWorker = {
   removeEventListener(type: 'error', listener: (e: ErrorEvent) => void): void;
 };
 
-export type AnalysisRun = (
-  corners: Record<CornerPosition, CornerInput>,
-  options: AnalysisOptions,
+export type AnalysisRun = <J extends AnalysisJob>(
+  job: J,
   hooks?: { onProgress?: (fraction: number, stage: string) => void; signal?: AbortSignal },
-) => Promise<AnalysisResult>;
+) => Promise<AnalysisJobResult<J>>;
 
 /**
- * A runner of analyses in a worker that `workerStart` starts. One worker is kept between runs
- * (starting one loads core and mathjs again); aborting a run's signal ends that worker at once,
- * rejects with AnalysisCancelled, and the next run starts a fresh one.
+ * A runner of analysis jobs in a worker that `workerStart` starts. One worker is kept between
+ * runs (starting one loads core and mathjs again). Aborting a run's signal rejects it at once
+ * with AnalysisCancelled and tells the worker, which drops the job at its next corner and goes
+ * on to the next; a worker that fails is ended, and the next run starts a fresh one.
  */
 export function analysisRunner(workerStart: () => AnalysisWorker): AnalysisRun {
   let worker: AnalysisWorker | null = null;
   let nextId = 1;
-  return (corners, options, hooks = {}) => {
+  return <J extends AnalysisJob>(
+    job: J,
+    hooks: { onProgress?: (fraction: number, stage: string) => void; signal?: AbortSignal } = {},
+  ) => {
+    if (hooks.signal?.aborted) return Promise.reject(new AnalysisCancelled());
     const w = (worker ??= workerStart());
     const id = nextId++;
-    return new Promise((done, fail) => {
+    return new Promise<AnalysisJobResult<J>>((done, fail) => {
       const finish = () => {
         w.removeEventListener('message', onMessage);
         w.removeEventListener('error', onError);
         hooks.signal?.removeEventListener('abort', onAbort);
-      };
-      const end = () => {
-        finish();
-        w.terminate();
-        if (worker === w) worker = null;
       };
       const onMessage = (e: MessageEvent<AnalysisReply>) => {
         const r = e.data;
@@ -57,30 +53,33 @@ export function analysisRunner(workerStart: () => AnalysisWorker): AnalysisRun {
           return;
         }
         finish();
-        if (r.kind === 'done') done(r.result);
+        if (r.kind === 'done') done(r.result as AnalysisJobResult<J>);
         else fail(new Error(r.message));
       };
       const onError = (e: ErrorEvent) => {
-        end();
+        finish();
+        w.terminate();
+        if (worker === w) worker = null;
         fail(new Error(`the analysis stopped unexpectedly: ${e.message || 'worker error'}`));
       };
       const onAbort = () => {
-        end();
+        finish();
+        w.postMessage({ id, kind: 'cancel' });
         fail(new AnalysisCancelled());
       };
-      if (hooks.signal?.aborted) {
-        onAbort();
-        return;
-      }
       w.addEventListener('message', onMessage);
       w.addEventListener('error', onError);
       hooks.signal?.addEventListener('abort', onAbort);
-      w.postMessage({ id, corners, options });
+      w.postMessage({ id, ...job });
     });
   };
 }
 
-/** Runs the analysis of one setup in the page's analysis worker. */
-export const analysisRun: AnalysisRun = analysisRunner(
-  () => new Worker(new URL('./analysis.worker.ts', import.meta.url), { type: 'module' }),
-);
+const workerStart = () => new Worker(new URL('./analysis.worker.ts', import.meta.url), { type: 'module' });
+
+/**
+ * The page's two analysis workers: the linear figures and the bump each in one of their own,
+ * so that each is worked out alongside the other and a new road never waits for the bump.
+ */
+export const analysisRunLinear: AnalysisRun = analysisRunner(workerStart);
+export const analysisRunEvents: AnalysisRun = analysisRunner(workerStart);

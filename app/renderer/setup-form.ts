@@ -5,6 +5,7 @@ import { SETUP_FILE_FORMAT, SETUP_FILE_VERSION, setupFileParse } from '../../cor
 import { CORNER_POSITIONS, type CornerPosition } from '../../core/setup/setup-sheet';
 import {
   quantityParse,
+  numberShopFormat,
   quantityToDisplay,
   quantityUnitLabel,
   quantityUnitText,
@@ -161,7 +162,13 @@ function displayText(
   if (isQuantity(kind)) {
     try {
       const si = quantityParse(raw, kind, field);
-      return { text: String(Number(quantityToDisplay(si, kind, system).toPrecision(6))), si };
+      const shown = quantityToDisplay(si, kind, system);
+      // A value entered in the unit shown reads as entered; one converted (a number from the
+      // file, SI, shown in US units, or a quantity entered in another unit) reads as a shop
+      // writes it, with its exact value kept behind the text.
+      const entered = typeof raw === 'string' ? Number.parseFloat(raw) : system === 'si' ? shown : Number.NaN;
+      const text = String(Number(shown.toPrecision(6)));
+      return { text: Number(text) === Number(entered.toPrecision(6)) ? text : numberShopFormat(shown), si };
     } catch {
       return { text: String(raw) };
     }

@@ -419,7 +419,8 @@ export function quantityUnitText(kind: QuantityKind, system: UnitSystem): string
 
 /**
  * Formats an SI value for people: converted to the system's display unit, rounded to
- * that unit's usual decimals, unit label appended.
+ * that unit's usual decimals — or, where the system shows the kind in another unit than SI
+ * does, as a shop writes it (numberShopFormat) — unit label appended. `decimals` overrides both.
  * @example quantityFormat(65000, 'stiffness', 'us') // "371 lbf/in"
  */
 export function quantityFormat(
@@ -430,8 +431,35 @@ export function quantityFormat(
 ): string {
   const d = KINDS[kind].display[system];
   const shown = quantityToDisplay(valueSI, kind, system);
-  const text = numberFormat(shown, options.decimals ?? d.decimals);
+  const text =
+    options.decimals === undefined && quantityConvertedIn(kind, system)
+      ? numberShopFormat(shown)
+      : numberFormat(shown, options.decimals ?? d.decimals);
   return options.withUnit === false ? text : `${text} ${d.label}`;
+}
+
+/**
+ * Whether `kind` is shown in `system` in another unit than in SI (lb, lbf/in, psi…): a value
+ * converted to it is written as a shop writes it (numberShopFormat), not to the SI unit's decimals.
+ */
+export function quantityConvertedIn(kind: QuantityKind, system: UnitSystem): boolean {
+  return KINDS[kind].display[system].unit !== KINDS[kind].display.si.unit;
+}
+
+/**
+ * A converted number as a shop writes it: three significant figures, whole units always kept
+ * (so three or four figures below 10 000: 1373 lbf/in, not 1370), no trailing zeros — 650 lb,
+ * 514 lbf/in, 20.8 lbf·s/in, 24.7 psi, not 650.364 lb. For display only: a value converted in
+ * place keeps its exact value behind the text (setup-form.ts, quantity-field.ts).
+ * @example numberShopFormat(650.364) // "650"
+ */
+export function numberShopFormat(value: number): string {
+  if (!Number.isFinite(value)) return String(value);
+  if (value === 0) return '0';
+  const wholeDigits = Math.floor(Math.log10(Math.abs(value))) + 1;
+  const decimals = Math.min(20, Math.max(0, 3 - wholeDigits));
+  const text = numberFormat(value, decimals);
+  return decimals > 0 ? text.replace(/\.?0+$/, '') : text;
 }
 
 /**

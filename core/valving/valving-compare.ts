@@ -129,10 +129,17 @@ function bandDistance(v: number, t: { low: number | null; high: number | null })
   return 0;
 }
 
+/** The rule valvingHeadlineVerdict judges by, in words, for every screen and report that shows a verdict. */
+export const VALVING_VERDICT_RULE =
+  'Better or worse by each figure’s sense: lower is better for accelerations, tyre-load variation, travel and time in the air or on the bump stop; a figure with a target band is better nearer the middle of its band (nearer the band, where the band is open at one end); the score (Σ weight × (miss ÷ scale)², 0 when every target is met) is better lower; a change under 0.5 % is the same. The change is shown whatever the verdict.';
+
 /**
- * Whether going from `before` to `after` is better or worse for `key`: lower is better for
- * the event and road figures; for a banded figure, nearer the target band is better and
- * anywhere inside it is the same. Without the target (switched off), a banded figure has no verdict.
+ * Whether going from `before` to `after` is better or worse for `key` (VALVING_VERDICT_RULE):
+ * a change under VALVING_SAME_RELATIVE is the same; otherwise lower is better for the event and
+ * road figures, and for a banded figure nearer the band's middle is better — inside the band
+ * too, so that a ride frequency moving +4.7 % within its band is still judged — or, for a band
+ * open at one end, nearer the band (anywhere inside it the same). Without the target (switched
+ * off), a banded figure has no verdict.
  */
 export function valvingHeadlineVerdict(
   key: ValvingHeadlineKey,
@@ -144,14 +151,27 @@ export function valvingHeadlineVerdict(
   const s = VALVING_HEADLINE_SENSE[key];
   const scale = Math.max(Math.abs(before), Math.abs(after), Number.MIN_VALUE);
   if (s.sense === 'none') return null;
-  if (s.sense === 'lower') {
-    if (Math.abs(after - before) <= VALVING_SAME_RELATIVE * scale) return 'same';
-    return after < before ? 'better' : 'worse';
-  }
+  if (Math.abs(after - before) <= VALVING_SAME_RELATIVE * scale) return 'same';
+  if (s.sense === 'lower') return after < before ? 'better' : 'worse';
   const t = targets[s.target];
   if (!t || (t.low === null && t.high === null)) return null;
-  const da = bandDistance(before, t);
-  const db = bandDistance(after, t);
+  const { low, high } = t;
+  const off =
+    low !== null && high !== null
+      ? (v: number) => Math.abs(v - (low + high) / 2)
+      : (v: number) => bandDistance(v, t);
+  const da = off(before);
+  const db = off(after);
   if (Math.abs(db - da) <= VALVING_SAME_RELATIVE * scale) return 'same';
   return db < da ? 'better' : 'worse';
+}
+
+/**
+ * Whether going from score `before` to `after` (valvingScoreOf: 0 when every target is met) is
+ * better or worse: lower is better, and a change under VALVING_SAME_RELATIVE is the same.
+ */
+export function valvingScoreVerdict(before: number, after: number): Exclude<ValvingVerdict, null> {
+  const scale = Math.max(Math.abs(before), Math.abs(after));
+  if (Math.abs(after - before) <= VALVING_SAME_RELATIVE * scale) return 'same';
+  return after < before ? 'better' : 'worse';
 }

@@ -8,15 +8,14 @@
  * Profile it with `node --cpu-prof --import tsx test/bench/analysis-bench.ts`.
  */
 import { readFileSync, readdirSync } from 'node:fs';
+import { analysisCornersOf, setupAnalyze } from '../../app/renderer/analysis-result';
+import { analysisFigureGroups } from '../../app/renderer/analysis-figures';
 import {
-  analysisCornersOf,
-  analysisFigureGroups,
   analysisOptionTextsDefault,
   analysisOptionsRead,
-  analysisPlots,
-  setupAnalyze,
   type AnalysisOptions,
-} from '../../app/renderer/analysis-model';
+} from '../../app/renderer/analysis-options';
+import { analysisPlots } from '../../app/renderer/analysis-plots';
 
 const dir = new URL('../../assets/demo/setups/', import.meta.url);
 const files = readdirSync(dir, { recursive: true })

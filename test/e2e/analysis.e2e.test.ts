@@ -120,7 +120,7 @@ describe.skipIf(!chromium)('Ride figures, in Chromium against the served app', (
       .toContain('Bump: 40.0 mm high');
   });
 
-  it('switches to US units in place: figures, fields and axis labels', async () => {
+  it('switches to US units in place: figures, fields and axis labels', { timeout: 90_000 }, async () => {
     await page.getByLabel('Road speed').fill('100');
     await expect.poll(() => page.locator('table.analysis-figures').innerText()).toContain('at 100.0 km/h');
     await page.getByLabel('US', { exact: true }).check();
@@ -129,7 +129,10 @@ describe.skipIf(!chromium)('Ride figures, in Chromium against the served app', (
     // The vehicle's scenario converted, to 4 significant figures: 100 km/h = 62.14 mph.
     expect(await page.getByLabel('Road speed').inputValue()).toBe('62.14');
     expect(await cell(page, 'bumpMaxCompression', 'FL').innerText()).toMatch(/ in$/);
-    expect(await page.locator('figure[data-plot="bump-travel"]').innerText()).toContain('Travel (in)');
+    // Plots are redrawn one a task after the figures: the axis label follows a moment later.
+    await expect
+      .poll(() => page.locator('figure[data-plot="bump-travel"]').innerText(), { timeout: 30_000 })
+      .toContain('Travel (in)');
     await screenshotSave(page, 'ride-figures-us');
   });
 

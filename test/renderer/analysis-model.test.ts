@@ -1,16 +1,15 @@
 import { readFileSync } from 'node:fs';
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
+import { analysisCornersOf, setupAnalyze } from '../../app/renderer/analysis-result';
+import { analysisFigureGroups } from '../../app/renderer/analysis-figures';
 import {
-  analysisCornersOf,
-  analysisFigureGroups,
   analysisOptionTextsConvert,
   analysisOptionTextsDefault,
   analysisOptionsRead,
-  analysisPlots,
-  setupAnalyze,
   type AnalysisOptions,
-} from '../../app/renderer/analysis-model';
+} from '../../app/renderer/analysis-options';
+import { analysisPlots } from '../../app/renderer/analysis-plots';
 import type { CornerInput } from '../../core/corner/corner';
 import { InputError } from '../../core/units/input-error';
 import { WORKED_CORNER, fourOf } from './worked-corner';
@@ -84,8 +83,11 @@ describe('the road and bump options', () => {
     const d = analysisOptionTextsDefault('si');
     expect(analysisOptionTextsConvert(d, 'si', 'us')).toEqual(analysisOptionTextsDefault('us'));
     const typed = analysisOptionTextsConvert({ ...d, roadSpeed: '100', bumpHeight: 'oops' }, 'si', 'us');
-    // NIST SP 811 [pub]: 100 km/h = 62.1371 mph.
-    expect(typed.roadSpeed).toBe('62.1371');
+    // NIST SP 811 [pub]: 100 km/h = 62.1371 mph, written as a shop does; read back, it is exactly 100 km/h.
+    expect(typed.roadSpeed).toBe('62.1');
+    const back = analysisOptionsRead({ ...typed, bumpHeight: '1' }, 'us');
+    expect('options' in back && back.options.road.speed).toBeCloseTo(100 / 3.6, 12);
+    expect(analysisOptionTextsConvert(typed, 'us', 'si').roadSpeed).toBe('100');
     expect(typed.bumpHeight).toBe('oops');
     expect(analysisOptionTextsConvert(d, 'si', 'si')).toBe(d);
   });
@@ -182,9 +184,9 @@ describe('the figures table', () => {
 
   it('names the road and the bump in the group titles, in the unit system picked', () => {
     const titles = analysisFigureGroups(result, 'us').map((g) => g.title);
-    expect(titles).toContain('Road step of 0.39 in (linear model)');
+    expect(titles).toContain('Road step of 0.394 in (linear model)'); // 10 mm [calc]
     expect(titles.some((t) => t.includes('ISO 8608 class C at 49.7 mph'))).toBe(true);
-    expect(titles.some((t) => t.startsWith('Bump: 0.98 in high'))).toBe(true);
+    expect(titles.some((t) => t.startsWith('Bump: 0.984 in high'))).toBe(true); // 25 mm [calc]
   });
 
   it('puts each warning beside the figure it concerns', () => {
@@ -218,7 +220,7 @@ describe('the figures table', () => {
       .find((r) => r.key === 'bumpAirborne');
     const liftOff = us?.warnings.FL.find((w) => w.code === 'tire-lift-off');
     expect(liftOff?.message).toMatch(
-      /over the 1\.97 in bump, 11\.81 in long, at 55\.9 mph.* lbf of tyre load/,
+      /over the 1\.97 in bump, 11\.8 in long, at 55\.9 mph.* lbf of tyre load/,
     );
     expect(big.corners.FL.warnings.us.map((w) => w.code)).toEqual(
       big.corners.FL.warnings.si.map((w) => w.code),

@@ -178,8 +178,11 @@ describe('the corner entered for ζ', () => {
 
   it('converts the entered quantities when the units switch, and keeps ratios', () => {
     const us = zetaCornerTextsConvert(si, 'si', 'us');
-    expect(us.cornerMass).toBe('661.387');
-    expect(us.springRate).toBe('399.71');
+    // 300 kg = 661.387 lb, 70 N/mm = 399.71 lbf/in (NIST SP 811 [pub]), written as a shop does.
+    expect(us.cornerMass).toBe('661');
+    expect(us.springRate).toBe('400');
+    // Back in SI, each reads as entered: the rounding was for the eye only.
+    expect(zetaCornerTextsConvert(us, 'us', 'si')).toEqual(si);
     expect(us.springMotionRatio).toBe('0.9');
   });
 });

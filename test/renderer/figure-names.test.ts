@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { analysisFigureGroups, setupAnalyze } from '../../app/renderer/analysis-model';
+import { analysisFigureGroups } from '../../app/renderer/analysis-figures';
+import { setupAnalyze } from '../../app/renderer/analysis-result';
 import { FIGURES, figureText } from '../../core/units/figure-labels';
 import { RIDE_SCENARIO_DEFAULT } from '../../core/valving/ride-scenario';
 import { VALVING_HEADLINES } from '../../core/valving/valving-rank';

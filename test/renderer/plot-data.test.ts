@@ -6,6 +6,7 @@ import {
   niceLinearTicks,
   niceLogTicks,
   plotCsv,
+  plotPointsThin,
 } from '../../app/renderer/components/plot-data';
 import {
   quantityDisplayFactor,
@@ -86,10 +87,12 @@ describe('quantity fields', () => {
     expect(quantityFieldValue('-2e-3', 'length', 'si')).toBe('-2e-3 mm');
   });
 
-  it('converts between systems to six digits, and keeps text that does not read', () => {
-    // NIST SP 811 [pub]: 1 in = 25.4 mm; 100 °F = 37.7778 °C.
+  it('converts between systems as a shop writes figures, and keeps text that does not read', () => {
+    // NIST SP 811 [pub]: 1 in = 25.4 mm; 100 °F = 37.7778 °C, written to three figures.
     expect(quantityFieldConvert('25.4', 'length', 'si', 'us')).toBe('1');
-    expect(quantityFieldConvert('100', 'temperature', 'us', 'si')).toBe('37.7778');
+    expect(quantityFieldConvert('100', 'temperature', 'us', 'si')).toBe('37.8');
+    // The exact value stays behind the rounded text: back in °F it reads as typed.
+    expect(quantityFieldConvert('37.8', 'temperature', 'si', 'us')).toBe('100');
     expect(quantityFieldConvert('abc', 'length', 'si', 'us')).toBe('abc');
     expect(quantityFieldConvert('', 'length', 'si', 'us')).toBe('');
     expect(quantityFieldConvert('12', 'length', 'si', 'si')).toBe('12');
@@ -99,5 +102,42 @@ describe('quantity fields', () => {
     expect(quantityDisplayFactor('length', 'si')).toBeCloseTo(1000, 9);
     expect(quantityDisplayFactor('force', 'us')).toBeCloseTo(1 / 4.4482216152605, 12);
     expect(quantityDisplayFactor('acceleration', 'us')).toBe(1);
+  });
+});
+
+describe('a curve thinned for drawing', () => {
+  it('keeps the ends, every run’s peak and trough, and the order, within the budget (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: 0, maxLength: 2000 }),
+        fc.integer({ min: 4, max: 400 }),
+        (ys, max) => {
+          const points = ys.map((y, x) => ({ x, y }));
+          const thin = plotPointsThin(points, max);
+          if (points.length <= max) return thin.length === points.length;
+          const ySorted = [...ys].sort((a, b) => a - b);
+          return (
+            thin.length <= max &&
+            thin[0] === points[0] &&
+            thin[thin.length - 1] === points[points.length - 1] &&
+            thin.every((p, i) => i === 0 || p.x > (thin[i - 1] as { x: number }).x) &&
+            thin.some((p) => p.y === ySorted[0]) &&
+            thin.some((p) => p.y === ySorted[ySorted.length - 1])
+          );
+        },
+      ),
+    );
+  });
+
+  it('draws a 400-point history as 242 points with its peak where it was', () => {
+    // A decaying 14 Hz oscillation over 1.5 s, the shape of a wheel-hop history [calc].
+    const points = Array.from({ length: 400 }, (_, k) => {
+      const t = (1.5 * k) / 399;
+      return { x: t, y: Math.exp(-3 * t) * Math.sin(2 * Math.PI * 14 * t) };
+    });
+    const thin = plotPointsThin(points, 242);
+    expect(thin.length).toBeLessThanOrEqual(242);
+    const peak = (ps: { x: number; y: number }[]) => ps.reduce((a, b) => (b.y > a.y ? b : a));
+    expect(peak(thin)).toBe(peak(points));
   });
 });

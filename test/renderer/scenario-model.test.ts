@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { analysisFigureGroups, setupAnalyze } from '../../app/renderer/analysis-model';
+import { analysisFigureGroups } from '../../app/renderer/analysis-figures';
+import { setupAnalyze } from '../../app/renderer/analysis-result';
 import {
   SCENARIO_FIELDS,
   scenarioEditsOf,

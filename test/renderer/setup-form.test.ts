@@ -1,4 +1,5 @@
 import { readdirSync, readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { setupFileParse } from '../../core/setup/setup-file';
 import {
@@ -38,9 +39,8 @@ describe('the setup editor model', () => {
     const file = demoFiles()[0] as Record<string, unknown>;
     const si = setupFormFromFile(file, 'si');
     const us = setupFormConvert(si, 'us');
-    expect(us.values['corners.FL.corner.springRate']).toBe(
-      String(Number(((70_000 * 0.0254) / 4.4482216152605).toPrecision(6))),
-    );
+    // 70 N/mm = 399.71 lbf/in (1 lbf/in = 175.1268 N/m, NIST SP 811 [pub]), written as a shop does.
+    expect(us.values['corners.FL.corner.springRate']).toBe('400');
     const back = setupFormConvert(us, 'si');
     expect(back.values['corners.FL.corner.springRate']).toBe('70');
     expect(setupFileParse(setupFormToFile(us)).sheet.corners.FL.analysis.springRate).toBeCloseTo(70_000, 6);
@@ -83,5 +83,57 @@ describe('the setup editor model', () => {
     const r = setupFormCorner(form, 'FL');
     expect('corner' in r && r.corner.springRate).toBeCloseTo((400 * 4.4482216152605) / 0.0254, 6);
     expect('error' in setupFormCorner(form, 'FR')).toBe(true);
+  });
+
+  it('shows a US sheet converted from SI as a shop writes it: 650 lb, 514 lbf/in, 20.8 lbf·s/in, 24.7 psi', () => {
+    const file = structuredClone(demoFiles()[0] as Record<string, unknown>);
+    const fl = (file.corners as Record<string, Record<string, unknown>>).FL as Record<string, unknown>;
+    const corner = fl.corner as Record<string, unknown>;
+    Object.assign(corner, { cornerMass: '295 kg', springRate: '90 N/mm' });
+    (corner.damper as { bump: Record<string, unknown> }).bump.lowSpeed = '3643 N*s/m';
+    fl.tirePressureCold = '170 kPa';
+    const us = setupFormConvert(setupFormFromFile(file, 'si'), 'us');
+    // NIST SP 811 factors [pub]: 650.364 lb, 513.92 lbf/in, 20.802 lbf·s/in, 24.656 psi [calc].
+    expect(us.values['corners.FL.corner.cornerMass']).toBe('650');
+    expect(us.values['corners.FL.corner.springRate']).toBe('514');
+    expect(us.values['corners.FL.corner.damper.bump.lowSpeed']).toBe('20.8');
+    expect(us.values['corners.FL.tirePressureCold']).toBe('24.7');
+    // A value entered in the unit shown reads as entered, every figure kept.
+    const typed = setupFormSet(us, 'corners.FL.corner.springRate', '513.25');
+    expect(setupFormFromFile(setupFormToFile(typed), 'us').values['corners.FL.corner.springRate']).toBe(
+      '513.25',
+    );
+  });
+
+  it('never changes a stored value by rounding what it shows, however often the units switch (property)', () => {
+    const base = demoFiles()[0] as Record<string, unknown>;
+    fc.assert(
+      fc.property(
+        fc.double({ min: 50, max: 900, noNaN: true }),
+        fc.double({ min: 5_000, max: 500_000, noNaN: true }),
+        fc.double({ min: 100, max: 20_000, noNaN: true }),
+        fc.integer({ min: 1, max: 3 }),
+        (mass, rate, damping, switches) => {
+          const file = structuredClone(base);
+          const corner = (
+            (file.corners as Record<string, Record<string, unknown>>).RL as Record<string, unknown>
+          ).corner as Record<string, unknown>;
+          Object.assign(corner, { cornerMass: mass, springRate: rate });
+          (corner.damper as { rebound: Record<string, unknown> }).rebound.lowSpeed = damping;
+          let form = setupFormFromFile(file, 'si');
+          for (let i = 0; i < switches; i++) form = setupFormConvert(setupFormConvert(form, 'us'), 'si');
+          const us = setupFormConvert(form, 'us');
+          for (const f of [form, us]) {
+            const back = setupFileParse(setupFormToFile(f)).sheet.corners.RL.analysis;
+            if (back.cornerMass !== mass || back.springRate !== rate) return false;
+            const d = back.damper.rebound;
+            if (d.kind !== 'linear' && d.kind !== 'bilinear') return false;
+            if ((d.kind === 'linear' ? d.coefficient : d.lowSpeed) !== damping) return false;
+          }
+          return true;
+        },
+      ),
+      { numRuns: 40 },
+    );
   });
 });

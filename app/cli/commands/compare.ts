@@ -1,13 +1,19 @@
 import { clickSettingsText } from '../../../core/damper/click-settings';
 import { numberFormat, type UnitSystem } from '../../../core/units/units';
+import {
+  VALVING_VERDICT_RULE,
+  valvingHeadlineVerdict,
+  valvingScoreVerdict,
+} from '../../../core/valving/valving-compare';
 import { VALVING_HEADLINE_KEYS, VALVING_HEADLINES } from '../../../core/valving/valving-rank';
+import type { ValvingTargets } from '../../../core/valving/valving-targets';
 import { apiCall } from '../../api/call';
 import type { HandlerOutput } from '../../api/contract';
 import { EXIT_OK, UsageError, type CliIo } from '../cli-io';
 import { commandArgsParse, helpShown, jsonText } from '../command-args';
 import { revisionPairOf } from '../revision-ref';
 import { withStore } from '../store-session';
-import { tableFormat } from '../table';
+import { tableFormat, textWrap } from '../table';
 import {
   valvingBalanceLines,
   valvingCautionLines,
@@ -43,6 +49,7 @@ function compareHuman(out: CompareOut, system: UnitSystem): string {
   const lines = [
     `Track-day sheet: ${out.a.vehicle}@${out.a.revision} "${out.a.name}" → ${out.b.vehicle}@${out.b.revision} "${out.b.name}"`,
     ...valvingJudgedLines(out, system),
+    textWrap(`Verdicts: ${VALVING_VERDICT_RULE}`, 96, '    ').replace(/^ {4}/, '  '),
     '',
   ];
   for (const c of out.corners) {
@@ -51,17 +58,19 @@ function compareHuman(out: CompareOut, system: UnitSystem): string {
     lines.push(
       `${c.position}: ${damper(c.a)} → ${damper(c.b)}`,
       tableFormat([
-        ['figure', tag(out.a), tag(out.b), 'change'],
+        ['figure', tag(out.a), tag(out.b), 'change', 'verdict'],
         ...VALVING_HEADLINE_KEYS.map((k) => [
           VALVING_HEADLINES[k].label,
           valvingHeadlineText(k, c.a.headline[k], system),
           valvingHeadlineText(k, c.b.headline[k], system),
           valvingHeadlineText(k, c.change[k], system, true),
+          valvingHeadlineVerdict(k, c.a.headline[k], c.b.headline[k], out.targets as ValvingTargets) ?? '',
         ]),
         [
           'targets met',
           `${c.a.score.met} of ${c.a.score.met + c.a.score.missed}`,
           `${c.b.score.met} of ${c.b.score.met + c.b.score.missed}`,
+          '',
           '',
         ],
         [
@@ -69,6 +78,7 @@ function compareHuman(out: CompareOut, system: UnitSystem): string {
           numberFormat(c.a.score.score, 3),
           numberFormat(c.b.score.score, 3),
           valvingValueText(c.b.score.score - c.a.score.score, null, system, true),
+          valvingScoreVerdict(c.a.score.score, c.b.score.score),
         ],
       ]),
     );

@@ -4,6 +4,7 @@ import { csvFormat } from '../csv';
  * One series of a plot: a curve, or measured points drawn as markers (`points`). `style`
  * picks the colour, dash and marker (by default the series' place in the list), so that a
  * run's points and its fitted curve can share a colour and differ by line against marker.
+ * `width` draws a curve wider, so that one drawn over it in the same place still shows.
  */
 export type PlotSeries = {
   name: string;
@@ -11,6 +12,8 @@ export type PlotSeries = {
   y: ArrayLike<number>;
   points?: boolean;
   style?: number;
+  /** Line width (px), 2 unless given: curves that may coincide are drawn widest first. */
+  width?: number;
 };
 
 /** Ticks at 1, 2 and 5 × 10ⁿ within [lo, hi], for a log axis. */
@@ -75,4 +78,32 @@ export function barCsv(
   const rows: (string | number)[][] = [[categoryLabel, ...series.map((s) => `${s.name} (${yLabel})`)]];
   categories.forEach((c, i) => rows.push([c, ...series.map((s) => s.values[i] ?? NaN)]));
   return csvFormat(rows);
+}
+
+/**
+ * A curve's points thinned for drawing to at most about `max`: the first and last kept, and in
+ * each of max/2 runs of neighbouring points its lowest and its highest, in order — so every
+ * peak and trough a plot a few hundred pixels wide can show stays, at a fraction of the work
+ * of drawing them all. Markers (measured points) are never thinned; a plot's CSV keeps every
+ * point.
+ */
+export function plotPointsThin<P extends { x: number; y: number }>(points: readonly P[], max: number): P[] {
+  if (points.length <= max || max < 4) return [...points];
+  const buckets = Math.floor((max - 2) / 2);
+  const inner = points.length - 2;
+  const out: P[] = [points[0] as P];
+  for (let b = 0; b < buckets; b++) {
+    const from = 1 + Math.floor((b * inner) / buckets);
+    const to = 1 + Math.floor(((b + 1) * inner) / buckets);
+    let lo = from;
+    let hi = from;
+    for (let k = from; k < to; k++) {
+      if ((points[k] as P).y < (points[lo] as P).y) lo = k;
+      if ((points[k] as P).y > (points[hi] as P).y) hi = k;
+    }
+    if (to <= from) continue;
+    for (const k of lo === hi ? [lo] : [Math.min(lo, hi), Math.max(lo, hi)]) out.push(points[k] as P);
+  }
+  out.push(points[points.length - 1] as P);
+  return out;
 }

@@ -10,7 +10,10 @@ import {
   YAxis,
 } from 'recharts';
 import { PlotFrame, axisLabelX, axisLabelY, seriesStyle, tickText } from './plot-frame';
-import { niceLinearTicks, niceLogTicks, plotCsv, type PlotSeries } from './plot-data';
+import { niceLinearTicks, niceLogTicks, plotCsv, plotPointsThin, type PlotSeries } from './plot-data';
+
+/** Points of a curve drawn at most (the CSV keeps them all): min and max of 120 runs. */
+const CURVE_POINTS_DRAWN = 242;
 
 export { SERIES_STYLES, svgToPng } from './plot-frame';
 export { plotCsv } from './plot-data';
@@ -39,7 +42,14 @@ export function LinePlot(props: {
       if (Number.isFinite(x) && Number.isFinite(y) && (!props.xLog || x > 0) && (!props.yLog || y > 0))
         points.push({ x, y });
     }
-    return { name: s.name, points, asPoints: s.points === true, style: seriesStyle(s.style ?? i) };
+    return {
+      name: s.name,
+      // A chart a few hundred pixels wide shows no more than this many points a curve.
+      points: s.points === true ? points : plotPointsThin(points, CURVE_POINTS_DRAWN),
+      asPoints: s.points === true,
+      style: seriesStyle(s.style ?? i),
+      width: s.width ?? 2,
+    };
   });
   const xs = data.flatMap((d) => d.points.map((p) => p.x));
   const ys = data.flatMap((d) => d.points.map((p) => p.y));
@@ -131,7 +141,7 @@ export function LinePlot(props: {
                 dataKey="y"
                 stroke={d.style.colour}
                 strokeDasharray={d.style.dash}
-                strokeWidth={2}
+                strokeWidth={d.width}
                 dot={false}
                 isAnimationActive={false}
               />

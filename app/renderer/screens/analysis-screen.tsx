@@ -1,25 +1,19 @@
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import type { CornerInput } from '../../../core/corner/corner';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
-import type { UnitSystem } from '../../../core/units/units';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
-import {
-  analysisFigureGroups,
-  analysisPlots,
-  type AnalysisOptions,
-  type AnalysisResult,
-  type FigureGroup,
-} from '../analysis-model';
-import { AnalysisCancelled, analysisRun } from '../analysis-run';
-import { BarPlot } from '../components/bar-plot';
-import { revisionCornersOf } from '../revision-dampers';
+import { analysisFigureGroups } from '../analysis-figures';
+import type { AnalysisOptions } from '../analysis-options';
 import { CautionLine, WarningList } from '../components/caution';
-import { LinePlot } from '../components/plot';
 import { RevisionPicker } from '../components/revision-pick';
 import { ScenarioPanel, useVehicleScenario } from '../components/scenario-panel';
 import { ErrorLine, ProgressLine } from '../components/status';
+import { FiguresTable } from './analysis/figures-table';
+import { revisionCornersOf } from '../revision-dampers';
+import { RidePlots } from './analysis/ride-plots';
+import { useRideAnalysis } from './analysis/use-ride-analysis';
 
 type Shown = {
   pick: RevisionPick;
@@ -27,85 +21,7 @@ type Shown = {
   corners: Record<CornerPosition, CornerInput>;
 };
 
-/** Progress is shown only for a run that is not done in a moment, so quick ones do not flicker. */
-const PROGRESS_DELAY_MS = 150;
-/** Typing pauses this long before the figures are worked out again. */
-const RECOMPUTE_DELAY_MS = 250;
-
-function FiguresTable(props: { groups: FigureGroup[] }) {
-  return (
-    <table className="figures analysis-figures" aria-label="Ride figures per corner">
-      <thead>
-        <tr>
-          <th scope="col">Figure</th>
-          {CORNER_POSITIONS.map((p) => (
-            <th scope="col" key={p}>
-              {p}
-            </th>
-          ))}
-        </tr>
-      </thead>
-      {props.groups.map((g) => (
-        <tbody key={g.key}>
-          <tr className="group-row">
-            <th scope="colgroup" colSpan={CORNER_POSITIONS.length + 1}>
-              {g.title}
-            </th>
-          </tr>
-          {g.rows.map((r) => (
-            <tr key={r.key} data-figure={r.key}>
-              <th scope="row">{r.label}</th>
-              {CORNER_POSITIONS.map((p) => {
-                const w = r.warnings[p];
-                return (
-                  <td key={p} data-corner={p} className={w.length ? 'has-warning' : undefined}>
-                    {w.length ? (
-                      <span
-                        className="warn-mark"
-                        role="img"
-                        aria-label={`warning: ${w.map((x) => x.message).join(' ')}`}
-                        title={w.map((x) => x.message).join('\n')}
-                      >
-                        ⚠{' '}
-                      </span>
-                    ) : null}
-                    {r.cells[p]}
-                  </td>
-                );
-              })}
-            </tr>
-          ))}
-        </tbody>
-      ))}
-    </table>
-  );
-}
-
-function Plots(props: { result: AnalysisResult; units: UnitSystem }) {
-  const plots = useMemo(() => analysisPlots(props.result, props.units), [props.result, props.units]);
-  return (
-    <>
-      <h3>Step and bump responses</h3>
-      <div className="plots three">
-        {[...plots.step, ...plots.bump].map((p) => (
-          <LinePlot key={p.id} {...p} height={250} />
-        ))}
-      </div>
-      <h3>Frequency response</h3>
-      <div className="plots three">
-        {plots.frf.map((p) => (
-          <LinePlot key={p.id} {...p} height={260} />
-        ))}
-      </div>
-      <h3>Random road</h3>
-      <div className="plots three">
-        {plots.randomRoad.map((p) => (
-          <BarPlot key={p.id} {...p} valueText={(v) => v.toFixed(p.decimals)} height={250} />
-        ))}
-      </div>
-    </>
-  );
-}
+const LINEAR_GROUPS = ['linear', 'step', 'road'];
 
 /**
  * Ride figures of one stored revision: the figures table per corner with the model's warnings
@@ -117,12 +33,6 @@ export function AnalysisScreen() {
   const { units } = app;
   const [shown, setShown] = useState<Shown | null>(null);
   const [loadError, setLoadError] = useState<unknown>(null);
-  const [result, setResult] = useState<{ result: AnalysisResult; key: string; pick: RevisionPick } | null>(
-    null,
-  );
-  const [running, setRunning] = useState<{ fraction: number; stage: string; visible: boolean } | null>(null);
-  const [runError, setRunError] = useState<unknown>(null);
-  const abort = useRef<AbortController | null>(null);
 
   const pick = app.revision;
   const { openRevision } = app;
@@ -139,7 +49,6 @@ export function AnalysisScreen() {
       (r) => {
         if (gone) return;
         try {
-          setResult((old) => (old && old.pick === pick ? old : null));
           setShown({ pick, revision: r.revision, corners: revisionCornersOf(r) });
         } catch (e) {
           setLoadError(e);
@@ -159,48 +68,19 @@ export function AnalysisScreen() {
     () => (current ? { road: current.road, bump: current.bump } : null),
     [current],
   );
-  const runKey = shown && options ? JSON.stringify([shown.pick, shown.revision.savedAt, options]) : null;
-
-  // Work the figures out again a moment after the inputs settle; a newer run cancels an older one.
-  useEffect(() => {
-    if (!shown || !options || !runKey) return;
-    const controller = new AbortController();
-    let progressTimer: ReturnType<typeof setTimeout> | undefined;
-    const start = setTimeout(() => {
-      abort.current = controller;
-      setRunError(null);
-      setRunning({ fraction: 0, stage: 'starting', visible: false });
-      progressTimer = setTimeout(
-        () => setRunning((r) => (r ? { ...r, visible: true } : r)),
-        PROGRESS_DELAY_MS,
-      );
-      analysisRun(shown.corners, options, {
-        signal: controller.signal,
-        onProgress: (fraction, stage) => setRunning((r) => (r ? { ...r, fraction, stage } : r)),
-      })
-        .then(
-          (r) => setResult({ result: r, key: runKey, pick: shown.pick }),
-          (e: unknown) => {
-            if (!(e instanceof AnalysisCancelled) || abort.current === controller) setRunError(e);
-          },
-        )
-        .finally(() => {
-          clearTimeout(progressTimer);
-          if (abort.current === controller) {
-            abort.current = null;
-            setRunning(null);
-          }
-        });
-    }, RECOMPUTE_DELAY_MS);
-    return () => {
-      clearTimeout(start);
-      clearTimeout(progressTimer);
-      controller.abort();
-    };
-    // runKey stands for shown and options.
-  }, [runKey]);
-
-  const groups = useMemo(() => (result ? analysisFigureGroups(result.result, units) : null), [result, units]);
+  const setup = useMemo(
+    () => (shown ? { pick: shown.pick, savedAt: shown.revision.savedAt, corners: shown.corners } : null),
+    [shown],
+  );
+  const analysis = useRideAnalysis(setup, options);
+  const { result, stale, running } = analysis;
+  const runError = analysis.error;
+  const groups = useMemo(() => (result ? analysisFigureGroups(result, units) : null), [result, units]);
+  // Groups being worked out again for new inputs; with a field that does not read, none is.
+  const staleGroups = useMemo(
+    () => new Set(options ? [...(stale.linear ? LINEAR_GROUPS : []), ...(stale.events ? ['bump'] : [])] : []),
+    [stale.linear, stale.events, options],
+  );
 
   return (
     <section aria-label="Ride figures">
@@ -224,18 +104,24 @@ export function AnalysisScreen() {
         <ProgressLine
           label={`Working out the figures: ${running.stage}`}
           fraction={running.fraction}
-          onCancel={() => abort.current?.abort()}
+          onCancel={analysis.stop}
         />
       ) : null}
       <ErrorLine error={runError} />
       {!pick ? <p>Pick a vehicle and one of its revisions.</p> : null}
+      {(stale.linear || stale.events) && !options ? (
+        <p className="status" role="status">
+          The figures below are for the previous road and bump: fix the marked field, or change a value to
+          work them out again.
+        </p>
+      ) : null}
       {result && groups ? (
         <>
-          <FiguresTable groups={groups} />
+          <FiguresTable groups={groups} stale={staleGroups} />
           <h3>Model warnings</h3>
           <div className="corner-warnings">
             {CORNER_POSITIONS.map((p) => {
-              const w = result.result.corners[p].warnings[units];
+              const w = result.corners[p].warnings[units];
               return (
                 <div key={p} className="corner-warning-box" data-corner={p}>
                   <h4>{p}</h4>
@@ -248,7 +134,9 @@ export function AnalysisScreen() {
               );
             })}
           </div>
-          <Plots result={result.result} units={units} />
+          {analysis.linear && analysis.events ? (
+            <RidePlots linear={analysis.linear} events={analysis.events} units={units} />
+          ) : null}
         </>
       ) : pick && !loadError && !runError ? (
         <p>Working out the figures…</p>

@@ -1,55 +1,27 @@
 import { useEffect, useId, useMemo, useState } from 'react';
-import { cornerQuarterCar } from '../../../core/corner/corner';
-import { eventBump } from '../../../core/events/event';
-import { frequencyResponseGrid, frequencyResponseMagnitudeAt } from '../../../core/corner/frequency-response';
-import type { CornerPosition, SetupSheet } from '../../../core/setup/setup-sheet';
-import { eventSimulate } from '../../../core/events/simulate';
-import {
-  quantityFormat,
-  quantityToDisplay,
-  quantityUnitLabel,
-  numberFormat,
-  type UnitSystem,
-} from '../../../core/units/units';
-import { valvingHeadlineVerdict, type ValvingVerdict } from '../../../core/valving/valving-compare';
-import {
-  VALVING_HEADLINE_KEYS,
-  VALVING_HEADLINES,
-  type ValvingHeadlineKey,
-} from '../../../core/valving/valving-rank';
+import type { CornerPosition } from '../../../core/setup/setup-sheet';
 import type { ValvingTargets } from '../../../core/valving/valving-targets';
 import type { HandlerOutput } from '../../api/contract';
 import { apiCall } from '../api-client';
 import { revisionSheetOf } from '../revision-dampers';
 import { useApp, type RevisionPick } from '../app-context';
+import {
+  compareRows,
+  compareSameAsBaseline,
+  compareScores,
+  labelOf,
+  type Compared,
+  type Loaded,
+} from '../compare-model';
 import { CornerChoice, PresetChoice } from '../components/choices';
 import { CautionLine, WarningList } from '../components/caution';
-import { LinePlot, type PlotSeries } from '../components/plot';
 import { RevisionPicker } from '../components/revision-pick';
 import { ScenarioPanel, useVehicleScenario } from '../components/scenario-panel';
 import { ErrorLine } from '../components/status';
+import { ComparePlots } from './compare/compare-plots';
+import { CompareTable } from './compare/compare-table';
 
 type Presets = HandlerOutput<'valvingPresets'>;
-type Compared = HandlerOutput<'setupCompare'>;
-type Loaded = { pick: RevisionPick; name: string; sheet: SetupSheet };
-
-const labelOf = (l: Loaded) => `${l.pick.vehicle} #${l.pick.revision} “${l.name}”`;
-
-function valueText(key: ValvingHeadlineKey, v: number | null, units: UnitSystem): string {
-  if (v === null) return '—';
-  const kind = VALVING_HEADLINES[key].kind;
-  if (kind === 'time') return `${numberFormat(v * 1000, 1)} ms`;
-  if (kind === 'frequency') return `${numberFormat(v, 2)} Hz`;
-  return kind
-    ? quantityFormat(v, kind, units, kind === 'length' ? { decimals: units === 'si' ? 2 : 3 } : {})
-    : numberFormat(v, 3);
-}
-
-const VERDICT_TEXT: Record<Exclude<ValvingVerdict, null>, string> = {
-  better: '▲ better',
-  worse: '▼ worse',
-  same: '= same',
-};
 
 /**
  * Two to four revisions (of one vehicle or several) side by side: the headline figures of each
@@ -110,63 +82,13 @@ export function CompareScreen() {
     presets?.presets.find((p) => p.name === preset)?.targets ??
     {}) as ValvingTargets;
 
-  const plots = useMemo(() => {
-    if (!scenario || loaded.length === 0) return null;
-    const freqs = frequencyResponseGrid(0.3, 30, 40);
-    const perMetre = quantityToDisplay(1, 'length', app.units);
-    const frf = { accel: [] as PlotSeries[], tire: [] as PlotSeries[], travel: [] as PlotSeries[] };
-    const bump = { accel: [] as PlotSeries[], travel: [] as PlotSeries[], tire: [] as PlotSeries[] };
-    const event = eventBump(scenario.bump);
-    for (const l of loaded) {
-      const corner = l.sheet.corners[position].analysis;
-      const q = cornerQuarterCar(corner);
-      const m = freqs.map((f) => frequencyResponseMagnitudeAt(q, f));
-      const name = labelOf(l);
-      frf.accel.push({ name, x: freqs, y: m.map((r) => r.bodyAccel / perMetre) });
-      frf.tire.push({
-        name,
-        x: freqs,
-        y: m.map((r) => quantityToDisplay(r.tireLoad, 'force', app.units) / perMetre),
-      });
-      frf.travel.push({ name, x: freqs, y: m.map((r) => r.travel) });
-      const h = eventSimulate(corner, event, { historyPoints: 600 }).history;
-      if (h) {
-        bump.accel.push({ name, x: h.time, y: h.bodyAccel });
-        bump.travel.push({
-          name,
-          x: h.time,
-          y: Array.from(h.travel, (v) => quantityToDisplay(v, 'length', app.units)),
-        });
-        bump.tire.push({
-          name,
-          x: h.time,
-          y: Array.from(h.tireLoad, (v) => quantityToDisplay(v, 'force', app.units)),
-        });
-      }
-    }
-    return { frf, bump };
-  }, [loaded, position, scenario, app.units]);
-
   const add = (p: RevisionPick) => {
     if (picks.some((x) => x.vehicle === p.vehicle && x.revision === p.revision) || picks.length >= 4) return;
     app.setComparePicks([...picks, p]);
   };
-  const len = quantityUnitLabel('length', app.units);
-  const force = quantityUnitLabel('force', app.units);
 
-  const rows = useMemo(() => {
-    const [first] = compared;
-    if (!first) return [];
-    return VALVING_HEADLINE_KEYS.map((key) => {
-      const corner = (c: Compared) => c.corners.find((x) => x.position === position);
-      const base = corner(first)?.a.headline[key] ?? null;
-      const others = compared.map((c) => {
-        const v = corner(c)?.b.headline[key] ?? null;
-        return { v, verdict: valvingHeadlineVerdict(key, base, v, targets) };
-      });
-      return { key, base, others };
-    });
-  }, [compared, position, targets]);
+  const rows = useMemo(() => compareRows(compared, position, targets), [compared, position, targets]);
+  const scores = useMemo(() => compareScores(compared, position), [compared, position]);
 
   return (
     <section aria-label="Compare setups">
@@ -224,48 +146,7 @@ export function CompareScreen() {
       {compared[0] ? <p className="muted">{compared[0].objective}</p> : null}
       <ErrorLine error={error} />
       {rows.length > 0 && loaded.length >= 2 ? (
-        <table className="figures" aria-label={`Headline figures at ${position}`} data-testid="compare-table">
-          <thead>
-            <tr>
-              <th scope="col">{position}</th>
-              <th scope="col">{labelOf(loaded[0] as Loaded)}</th>
-              {loaded.slice(1).map((l) => (
-                <th scope="col" key={labelOf(l)} colSpan={3}>
-                  {labelOf(l)}: value, change, verdict
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((r) => (
-              <tr key={r.key}>
-                <th scope="row" style={{ textAlign: 'left' }}>
-                  {VALVING_HEADLINES[r.key].label}
-                </th>
-                <td>{valueText(r.key, r.base, app.units)}</td>
-                {r.others.map((o, i) => {
-                  const d = r.base !== null && o.v !== null ? o.v - r.base : null;
-                  const pct =
-                    d !== null && r.base !== null && r.base !== 0 ? (100 * d) / Math.abs(r.base) : null;
-                  return [
-                    <td key={`v${i}`}>{valueText(r.key, o.v, app.units)}</td>,
-                    <td key={`d${i}`}>
-                      {d === null ? '—' : `${d >= 0 ? '+' : '−'}${valueText(r.key, Math.abs(d), app.units)}`}
-                      {pct === null ? '' : ` (${pct >= 0 ? '+' : '−'}${numberFormat(Math.abs(pct), 1)} %)`}
-                    </td>,
-                    <td
-                      key={`j${i}`}
-                      className={o.verdict === 'better' ? 'better' : o.verdict === 'worse' ? 'worse' : ''}
-                      data-verdict={o.verdict ?? ''}
-                    >
-                      {o.verdict ? VERDICT_TEXT[o.verdict] : '—'}
-                    </td>,
-                  ];
-                })}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <CompareTable rows={rows} scores={scores} loaded={loaded} position={position} units={app.units} />
       ) : null}
       {compared.length > 0 ? (
         <>
@@ -285,57 +166,14 @@ export function CompareScreen() {
           {compared[0] ? <p className="muted">{compared[0].valvingCaution}</p> : null}
         </>
       ) : null}
-      {plots && loaded.length >= 2 ? (
-        <div className="plots">
-          <LinePlot
-            id={`compare-frf-body-accel-${position}`}
-            title={`${position}: body acceleration per road displacement`}
-            xLabel="frequency (Hz)"
-            yLabel={`m/s² per ${len}`}
-            series={plots.frf.accel}
-            xLog
-            yLog
-          />
-          <LinePlot
-            id={`compare-frf-tire-load-${position}`}
-            title={`${position}: dynamic tyre load per road displacement`}
-            xLabel="frequency (Hz)"
-            yLabel={`${force} per ${len}`}
-            series={plots.frf.tire}
-            xLog
-            yLog
-          />
-          <LinePlot
-            id={`compare-frf-travel-${position}`}
-            title={`${position}: suspension travel per road displacement`}
-            xLabel="frequency (Hz)"
-            yLabel={`${len} per ${len}`}
-            series={plots.frf.travel}
-            xLog
-            yLog
-          />
-          <LinePlot
-            id={`compare-bump-body-accel-${position}`}
-            title={`${position}: body acceleration over the bump (nonlinear)`}
-            xLabel="time (s)"
-            yLabel="m/s²"
-            series={plots.bump.accel}
-          />
-          <LinePlot
-            id={`compare-bump-travel-${position}`}
-            title={`${position}: suspension travel over the bump, compression + (nonlinear)`}
-            xLabel="time (s)"
-            yLabel={len}
-            series={plots.bump.travel}
-          />
-          <LinePlot
-            id={`compare-bump-tire-load-${position}`}
-            title={`${position}: tyre load over the bump (nonlinear)`}
-            xLabel="time (s)"
-            yLabel={force}
-            series={plots.bump.tire}
-          />
-        </div>
+      {loaded.length >= 2 ? (
+        <ComparePlots
+          loaded={loaded}
+          position={position}
+          scenario={scenario}
+          units={app.units}
+          sameAsBaseline={compareSameAsBaseline(loaded, rows)}
+        />
       ) : null}
     </section>
   );

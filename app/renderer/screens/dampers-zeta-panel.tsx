@@ -2,7 +2,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { cornerSprungMass, cornerWheelRate, type CornerInput } from '../../../core/corner/corner';
 import { CORNER_POSITIONS, type CornerPosition } from '../../../core/setup/setup-sheet';
 import { numberFormat, quantityFormat, quantityUnitLabel, type UnitSystem } from '../../../core/units/units';
-import { analysisCornersOf } from '../analysis-model';
+import { analysisCornersOf } from '../analysis-result';
 import { apiCall } from '../api-client';
 import { useApp, type RevisionPick } from '../app-context';
 import { RevisionPicker } from '../components/revision-pick';

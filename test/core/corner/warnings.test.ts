@@ -59,10 +59,10 @@ describe('cornerWarnings', () => {
     // 1 lbf·s/in = 4.4482216152605 N ÷ 0.0254 m/s = 175.1268 N·s/m (exact definitions of the lbf and the inch).
     const perLbfSIn = 4.4482216152605 / 0.0254;
     expect(message('si')).toContain(`(${f.wheelDamping.rebound.toFixed(0)} N·s/m at the wheel)`);
-    expect(message('us')).toContain(
-      `(${(f.wheelDamping.rebound / perLbfSIn).toFixed(2)} lbf·s/in at the wheel)`,
-    );
-    expect(message('us')).toContain(`bump (${(f.wheelDamping.bump / perLbfSIn).toFixed(2)} lbf·s/in)`);
+    // Converted figures are written as a shop writes them: three significant figures.
+    const shop = (v: number) => String(Number(v.toPrecision(3)));
+    expect(message('us')).toContain(`(${shop(f.wheelDamping.rebound / perLbfSIn)} lbf·s/in at the wheel)`);
+    expect(message('us')).toContain(`bump (${shop(f.wheelDamping.bump / perLbfSIn)} lbf·s/in)`);
     expect(message('us')).not.toMatch(/N·s\/m/);
   });
 

@@ -83,15 +83,16 @@ describe('eventWarnings', () => {
     const si = eventWarnings(CORNER, EVENT, m, 'si');
     const us = eventWarnings(CORNER, EVENT, m, 'us');
     expect(us.map((w) => w.code)).toEqual(si.map((w) => w.code));
-    // [calc] 25 mm = 0.98 in; 600 mm = 23.62 in; 14 m/s = 31.3 mph; 4000 N = 899 lbf; 2300 N = 517 lbf;
-    // 54 mm = 2.13 in, 50 mm = 1.97 in; 40 mm = 1.57 in; 0.8 m/s = 31.50 in/s, 0.5 m/s = 19.69 in/s
+    // Written as a shop writes converted figures (three significant figures, numberShopFormat).
+    // [calc] 25 mm = 0.984 in; 600 mm = 23.6 in; 14 m/s = 31.3 mph; 4000 N = 899 lbf; 2300 N = 517 lbf;
+    // 54 mm = 2.13 in, 50 mm = 1.97 in; 40 mm = 1.57 in; 0.8 m/s = 31.5 in/s, 0.5 m/s = 19.7 in/s
     // (1 in = 25.4 mm, 1 mi = 1609.344 m, 1 lbf = 4.4482216152605 N: exact definitions).
-    expect(us[0]?.message).toContain('over the 0.98 in bump, 23.62 in long, at 31.3 mph');
+    expect(us[0]?.message).toContain('over the 0.984 in bump, 23.6 in long, at 31.3 mph');
     expect(us[0]?.message).toContain('up to 899 lbf of tyre load');
     expect(us[1]?.message).toContain('up to 517 lbf at the damper');
     expect(us[2]?.message).toMatch(/compresses 2\.13 in, beyond the 1\.97 in/);
     expect(us[3]?.message).toContain('extends past 1.57 in');
-    expect(us[4]?.message).toMatch(/31\.50 in\/s in bump, past the last point of its curve \(19\.69 in\/s\)/);
+    expect(us[4]?.message).toMatch(/31\.5 in\/s in bump, past the last point of its curve \(19\.7 in\/s\)/);
     for (const w of us) expect(w.message).not.toMatch(/\d (mm|N|m\/s|km\/h)\b/);
     expect(si[0]?.message).toContain('over the 25.0 mm bump, 600 mm long, at 50.4 km/h');
   });

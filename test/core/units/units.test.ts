@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { InputError } from '../../../core/units/input-error';
 import {
   QUANTITY_KINDS,
+  numberShopFormat,
   quantityFormat,
   quantityFromDisplay,
   quantityParse,
@@ -126,9 +127,53 @@ describe('display and file forms', () => {
     expect(quantityFormat(65_000, 'stiffness', 'si')).toBe('65.0 N/mm');
     // 65 N/mm = 371.16 lbf/in (NIST factors above) [calc]
     expect(quantityFormat(65_000, 'stiffness', 'us')).toBe('371 lbf/in');
-    expect(quantityFormat(0.3048, 'velocity', 'us')).toBe('12.00 in/s');
-    expect(quantityFormat(22.352, 'speed', 'us')).toBe('50.0 mph');
+    expect(quantityFormat(0.3048, 'velocity', 'us')).toBe('12 in/s');
+    expect(quantityFormat(22.352, 'speed', 'us')).toBe('50 mph');
     expect(quantityFormat(-0.00001, 'length', 'si')).toBe('0.0 mm');
+  });
+
+  it('writes converted US figures as a shop does: three significant figures, whole units kept', () => {
+    // Factors: 1 lb = 0.45359237 kg, 1 lbf = 4.4482216152605 N, 1 in = 0.0254 m, 1 psi =
+    // 6894.757 Pa (NIST SP 811 [pub]); the values below from them [calc].
+    expect(quantityFormat(295, 'mass', 'us')).toBe('650 lb'); // 650.364 lb
+    expect(quantityFormat(90_000, 'stiffness', 'us')).toBe('514 lbf/in'); // 513.92 lbf/in
+    expect(quantityFormat(3643, 'damping', 'us')).toBe('20.8 lbf·s/in'); // 20.802 lbf·s/in
+    expect(quantityFormat(170_000, 'pressure', 'us')).toBe('24.7 psi'); // 24.656 psi
+    expect(quantityFormat(240_000, 'stiffness', 'us')).toBe('1370 lbf/in'); // 1370.43: four figures
+    expect(quantityFormat(0.001, 'length', 'us')).toBe('0.0394 in'); // 0.03937 in
+    expect(quantityFormat(0.0254, 'length', 'us')).toBe('1 in');
+    // Kinds shown in the same unit in both systems keep their decimals, so they read alike.
+    expect(quantityFormat(8.78, 'acceleration', 'us')).toBe('8.78 m/s²');
+    expect(quantityFormat(1.5, 'time', 'us')).toBe(quantityFormat(1.5, 'time', 'si'));
+    // An explicit number of decimals still wins.
+    expect(quantityFormat(0.0254, 'length', 'us', { decimals: 3 })).toBe('1.000 in');
+  });
+
+  it('rounds to three figures by one rule, at every size and sign', () => {
+    expect(numberShopFormat(650.364)).toBe('650');
+    expect(numberShopFormat(20.802)).toBe('20.8');
+    expect(numberShopFormat(9.996)).toBe('10');
+    expect(numberShopFormat(999.6)).toBe('1000');
+    expect(numberShopFormat(12_345.6)).toBe('12346');
+    expect(numberShopFormat(-2.504)).toBe('-2.5');
+    expect(numberShopFormat(0.000123456)).toBe('0.000123');
+    expect(numberShopFormat(0)).toBe('0');
+    expect(numberShopFormat(-0.0000001)).toBe('-0.0000001');
+    expect(numberShopFormat(Number.NaN)).toBe('NaN');
+    fc.assert(
+      fc.property(
+        fc.double({ min: -1e7, max: 1e7, noNaN: true }).filter((x) => x === 0 || Math.abs(x) > 1e-9),
+        (v) => {
+          const text = numberShopFormat(v);
+          // Never further off than half a unit of the third significant figure (or of the units).
+          const step = Math.max(
+            10 ** (Math.floor(Math.log10(Math.abs(v) || 1)) - 2),
+            Math.abs(v) >= 100 ? 1 : 0,
+          );
+          return Math.abs(Number(text) - v) <= step / 2 + 1e-9 * Math.abs(v) && !/\.\d*0$/.test(text);
+        },
+      ),
+    );
   });
 
   it('converts to a display unit and back without loss (property)', () => {
