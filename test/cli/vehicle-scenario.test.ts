@@ -29,7 +29,7 @@ describe('rideledger vehicle scenario', () => {
       'us',
     );
     expect(set.code).toBe(0);
-    expect(set.stdout).toMatch(/class D road at 40\.0 mph; \(1−cos\) bump 1\.50 in high/);
+    expect(set.stdout).toMatch(/class D road at 40 mph; \(1−cos\) bump 1\.5 in high/);
     // The same scenario written in SI: 1.5 in = 38.1 mm, 40 mph = 64.37 km/h (NIST SP 811, exact factors) [pub]
     const si = await run('vehicle', 'scenario', COUPE, '--json');
     const out = JSON.parse(si.stdout);

@@ -112,7 +112,7 @@ describe.skipIf(!chromium)('one scenario per vehicle, in either unit system (Chr
     await panel.getByLabel('Road class (ISO 8608)').selectOption('D');
     await expect
       .poll(() => page.locator('table.analysis-figures').innerText(), { timeout: 30_000 })
-      .toMatch(/Bump: 1\.50 in high/);
+      .toMatch(/Bump: 1\.5 in high/);
     await expect.poll(() => panel.innerText()).toMatch(/The scenario stored for Millbrook coupe #27/);
 
     await page.reload();
