@@ -49,7 +49,17 @@ export function AnalysisScreen() {
       (r) => {
         if (gone) return;
         try {
-          setShown({ pick, revision: r.revision, corners: revisionCornersOf(r) });
+          const corners = revisionCornersOf(r);
+          // Data changed elsewhere (a scenario edit among them) need not be this revision: the
+          // same corners keep their figures rather than being worked out again.
+          setShown((old) =>
+            old &&
+            old.pick === pick &&
+            old.revision.savedAt === r.revision.savedAt &&
+            JSON.stringify(old.corners) === JSON.stringify(corners)
+              ? old
+              : { pick, revision: r.revision, corners },
+          );
         } catch (e) {
           setLoadError(e);
         }
