@@ -1,7 +1,7 @@
 // Types of app/node-build.js, for the tests and benchmarks that build or check the program.
 
 /** Why dist/node cannot be run as it is (no build, or a source changed since), or null when it is up to date. */
-export function nodeBuildStale(): string | null;
+export function nodeBuildStale(recordPath?: string): string | null;
 
 /** Builds dist/node from the sources; `clean` first removes an earlier build's files. */
 export function nodeBuild(options?: { clean?: boolean }): Promise<void>;

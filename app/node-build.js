@@ -47,11 +47,12 @@ function fileMark(path) {
 /**
  * Why the build in dist/node cannot be run as it is (no build, or the first source that
  * changed since it was made), or null when it is up to date. A few milliseconds: one stat a source.
+ * `recordPath`: the build's record to judge (a test judges a copy, never touching a source).
  */
-export function nodeBuildStale() {
+export function nodeBuildStale(recordPath = RECORD) {
   let record;
   try {
-    record = JSON.parse(readFileSync(RECORD, 'utf8'));
+    record = JSON.parse(readFileSync(recordPath, 'utf8'));
   } catch {
     return 'there is no build in dist/node';
   }

@@ -1,4 +1,6 @@
-import { existsSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { nodeBuildStale } from '../../app/node-build.js';
 import { PROJECT_ROOT, runBin, runCli } from './run-cli';
@@ -29,17 +31,25 @@ describe('the built command (dist/node)', () => {
 
   it('finds its build stale when a source is saved after it', () => {
     runBin(['--help']);
-    expect(nodeBuildStale()).toBeNull();
-    const source = `${PROJECT_ROOT}core/units/units.ts`;
-    const before = statSync(source);
+    // Judged on a copy of the build's record, so that no source is touched while other test
+    // files run the command beside this one.
+    const built = JSON.parse(readFileSync(`${PROJECT_ROOT}dist/node/build.json`, 'utf8')) as {
+      inputs: Record<string, string>;
+    };
+    const dir = mkdtempSync(join(tmpdir(), 'rideledger-build-record-'));
+    const copy = join(dir, 'build.json');
     try {
-      // As an editor's save would: a newer modification time.
-      utimesSync(source, before.atime, new Date(before.mtimeMs + 2000));
-      expect(nodeBuildStale()).toBe('core/units/units.ts changed since the last build');
+      const source = statSync(`${PROJECT_ROOT}core/units/units.ts`);
+      built.inputs['core/units/units.ts'] = `${source.size}:${Math.floor(source.mtimeMs)}`;
+      writeFileSync(copy, JSON.stringify(built));
+      expect(nodeBuildStale(copy)).toBeNull();
+      // As if the build were made before an editor's save: an older modification time recorded.
+      built.inputs['core/units/units.ts'] = `${source.size}:${Math.floor(source.mtimeMs) - 2000}`;
+      writeFileSync(copy, JSON.stringify(built));
+      expect(nodeBuildStale(copy)).toBe('core/units/units.ts changed since the last build');
     } finally {
-      utimesSync(source, before.atime, before.mtime);
+      rmSync(dir, { recursive: true, force: true });
     }
-    expect(nodeBuildStale()).toBeNull();
   });
 
   it('is rebuilt before it runs when its build is older than a source', async () => {
