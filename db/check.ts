@@ -2,15 +2,9 @@ import type Database from 'better-sqlite3';
 import { InputError } from '../core/units/input-error';
 import { nameKey, textControlsEscaped, textFieldParse } from '../core/units/text-field';
 import { sha256Hex } from './bench-points';
-import {
-  benchRunToBundle,
-  bundleDamperChecked,
-  bundleRevisionChecked,
-  bundleRevisionOf,
-  bundleRunChecked,
-  bundleVehicleChecked,
-  FIRST_SETUP_SUMMARY,
-} from './bundle';
+import { benchRunToBundle, bundleRevisionOf } from './bundle';
+import { bundleRevisionChecked, bundleVehicleChecked, FIRST_SETUP_SUMMARY } from './bundle-check';
+import { bundleDamperChecked, bundleRunChecked } from './bundle-check-bench';
 import { migrationsApplied, migrationsKnown, schemaVersionLatest } from './migrations';
 import { setupRevisionList } from './queries/setup-revision';
 import type { BenchRunRow, DamperUnitRow, VehicleRow } from './rows';
