@@ -1,11 +1,6 @@
 import { benchPointsBinned, type BenchPoints } from './bench-trace';
-import {
-  damperDirectionFit,
-  damperTablePointsOf,
-  type DamperDirectionCurve,
-  type DamperDirectionFit,
-  type DamperPoint,
-} from './damper-curve';
+import { damperTablePointsOf, type DamperDirectionCurve, type DamperPoint } from './damper-curve';
+import { damperDirectionFit, type DamperDirectionFit } from './damper-fit';
 import { InputError } from '../units/input-error';
 import { quantityFormat, type UnitSystem } from '../units/units';
 

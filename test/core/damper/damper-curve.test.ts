@@ -1,12 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { cubicHermiteAt, cubicHermiteMonotone } from '../../../core/numeric/cubic-hermite';
+import { damperCurveFit, damperDirectionFit } from '../../../core/damper/damper-fit';
 import {
-  damperCurveFit,
   damperCurveParse,
   damperCurveToFile,
   damperDirectionDataLimit,
-  damperDirectionFit,
   damperDirectionForce,
   damperDirectionParse,
   damperDirectionSlopes,
