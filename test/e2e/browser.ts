@@ -1,11 +1,11 @@
-import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { createInterface } from 'node:readline';
+
 import { fileURLToPath } from 'node:url';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
-import { backendReadyParse, type BackendReady } from '../../app/main/backend-process';
+import type { BackendReady } from '../../app/main/backend-process';
+import { backendChildStart } from '../backend-start';
 
 export const PROJECT_ROOT = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -24,40 +24,8 @@ export type ServedApp = BackendReady & { dbPath: string; stop: () => Promise<voi
 
 /** Starts the backend (as `npm run serve` does, on the built renderer) on a fresh temp database. */
 export async function appServe(): Promise<ServedApp> {
-  const dir = mkdtempSync(join(tmpdir(), 'rideledger-e2e-'));
-  const dbPath = join(dir, 'shop.sqlite');
-  const child: ChildProcess = spawn(
-    process.execPath,
-    ['--import', 'tsx', 'app/server/main.ts', '--ready-line', '--db', dbPath],
-    {
-      cwd: PROJECT_ROOT,
-      stdio: ['ignore', 'pipe', 'pipe'],
-      env: { ...process.env, RIDELEDGER_DB: '' },
-    },
-  );
-  let log = '';
-  child.stderr?.on('data', (d: Buffer) => (log += d.toString()));
-  const ready = await new Promise<BackendReady>((done, fail) => {
-    const timer = setTimeout(() => fail(new Error(`the server did not start: ${log}`)), 30_000);
-    const lines = createInterface({ input: child.stdout as NodeJS.ReadableStream });
-    lines.on('line', (line) => {
-      const r = backendReadyParse(line);
-      if (r) {
-        clearTimeout(timer);
-        done(r);
-      }
-    });
-    child.once('exit', (code) => fail(new Error(`the server exited (${code}): ${log}`)));
-  });
-  return {
-    ...ready,
-    dbPath,
-    stop: async () => {
-      child.kill('SIGTERM');
-      await new Promise((r) => child.once('exit', r));
-      rmSync(dir, { recursive: true, force: true });
-    },
-  };
+  const b = await backendChildStart();
+  return { origin: b.origin, port: b.port, token: b.token, url: b.url, dbPath: b.dbPath, stop: b.stop };
 }
 
 /** Debian's Chromium, headless, on a fresh profile, with the flags this closed network needs. */
