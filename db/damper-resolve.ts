@@ -1,5 +1,5 @@
 import type Database from 'better-sqlite3';
-import type { BenchFit } from '../core/damper/bench-fit';
+
 import { clickSettingsText, type ClickSettings } from '../core/damper/click-settings';
 import { cornerRideFigures, type CornerInput } from '../core/corner/corner';
 import { InputError } from '../core/units/input-error';
@@ -9,12 +9,14 @@ import {
   valvingCellIndex,
   valvingCornerWith,
   valvingCurvesOf,
+  valvingRunOf,
   type ValvingCurves,
   type ValvingRun,
 } from '../core/valving/valving-map';
 import type { ModelWarning } from '../core/corner/warnings';
 import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../core/setup/setup-sheet';
-import { benchRunListOfDamper } from './queries/bench-run';
+import { benchPointsDecode } from './bench-points';
+import { benchRunsWithPointsOfDamper } from './queries/bench-run';
 import { damperUnitByKey } from './queries/damper-unit';
 import { clickSettingsOfColumns } from './setup-rows';
 
@@ -53,15 +55,21 @@ export type CornerDamperRef = { analysis: CornerInput; damperUnit: string; click
  */
 export const DAMPER_DISAGREEMENT = 0.1;
 
-/** The bench runs of a damper unit as the per-click map reads them, or null when no unit has the label. */
+/**
+ * The bench runs of a damper unit as the per-click map reads them: each run's measured table
+ * (the one rule for a table, core/damper), so that the sheet, the map and `choose` run the
+ * same curves in their events too.
+ */
+export function damperUnitRuns(db: Database.Database, unitId: number): ValvingRun[] {
+  return benchRunsWithPointsOfDamper(db, unitId).map((r) =>
+    valvingRunOf(r.id, clickSettingsOfColumns(r), benchPointsDecode(r.points)),
+  );
+}
+
+/** The bench runs of a damper unit, or null when no unit has the label. */
 function damperRunsOf(db: Database.Database, label: string): { label: string; runs: ValvingRun[] } | null {
   const unit = damperUnitByKey(db, nameKey(label));
-  if (!unit) return null;
-  const runs = benchRunListOfDamper(db, unit.id).map((r) => {
-    const fit = JSON.parse(r.fit_json) as BenchFit;
-    return { id: r.id, clicks: clickSettingsOfColumns(r), bump: fit.bump, rebound: fit.rebound };
-  });
-  return { label: unit.label, runs };
+  return unit ? { label: unit.label, runs: damperUnitRuns(db, unit.id) } : null;
 }
 
 type DamperLookup = { label: string; curves: ValvingCurves } | { label: string; why: string };

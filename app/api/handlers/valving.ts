@@ -1,5 +1,5 @@
 import type Database from 'better-sqlite3';
-import { setupSheetResolve } from '../../../db/damper-resolve';
+import { damperUnitRuns, setupSheetResolve } from '../../../db/damper-resolve';
 import { CAUTION_TEXT, VALVING_CAUTION_TEXT } from '../../../core/safety/caution';
 import { InputError } from '../../../core/units/input-error';
 import { CORNER_POSITIONS, type CornerPosition, type SetupSheet } from '../../../core/setup/setup-sheet';
@@ -10,7 +10,6 @@ import {
   valvingCellSlopes,
   valvingCurvesOf,
   valvingMapOf,
-  valvingRunOf,
   type ValvingCurves,
   type ValvingRun,
 } from '../../../core/valving/valving-map';
@@ -23,10 +22,9 @@ import {
   type ValvingSource,
 } from '../../../core/valving/valving-targets';
 import { damperUnitResolve } from '../../../db/damper-units';
-import { benchPointsDecode } from '../../../db/bench-points';
-import { benchRunsWithPointsOfDamper } from '../../../db/queries/bench-run';
+
 import type { SetupRevisionRow, VehicleRow } from '../../../db/rows';
-import { clickSettingsOfColumns } from '../../../db/setup-rows';
+
 import { setupRevisionResolve, setupSheetRead } from '../../../db/setup-store';
 import { vehicleResolve } from '../../../db/vehicle-ref';
 import type { ApiContext } from '../context';
@@ -41,10 +39,7 @@ function valvingRunsOf(
   field: string,
 ): { label: string; runs: ValvingRun[] } {
   const unit = damperUnitResolve(db, label, field);
-  const runs = benchRunsWithPointsOfDamper(db, unit.id).map((r) =>
-    valvingRunOf(r.id, clickSettingsOfColumns(r), benchPointsDecode(r.points)),
-  );
-  return { label: unit.label, runs };
+  return { label: unit.label, runs: damperUnitRuns(db, unit.id) };
 }
 
 function curvesOf(db: Database.Database, label: string, interpolate: boolean, field: string) {
